@@ -1,0 +1,8 @@
+// PLACEHOLDER: replaced by the stage that owns this command.
+#include "app/commands.hpp"
+
+namespace sheetmill::app {
+
+void add_exhibit_command(CLI::App&, Action&, const GlobalOptions&) {}
+
+}  // namespace sheetmill::app

@@ -1,0 +1,61 @@
+#include "sheetmill/core/gdal_env.hpp"
+
+#include <cpl_error.h>
+
+#include <filesystem>
+#include <mutex>
+
+#include "sheetmill/core/error.hpp"
+#include "sheetmill/core/log.hpp"
+
+namespace sheetmill {
+
+void gdal_init() {
+  static std::once_flag once;
+  std::call_once(once, [] {
+    GDALAllRegister();
+    // A sheet is one process's work; let GDAL use both cores for warping.
+    CPLSetConfigOption("GDAL_NUM_THREADS", CPLGetConfigOption("GDAL_NUM_THREADS", "ALL_CPUS"));
+  });
+}
+
+void GdalErrorScope::handler(CPLErr level, CPLErrorNum, const char* msg) {
+  auto* self = static_cast<GdalErrorScope*>(CPLGetErrorHandlerUserData());
+  if (level == CE_Failure || level == CE_Fatal) {
+    if (self) self->last_failure_ = msg ? msg : "";
+  } else if (level == CE_Warning) {
+    log::debug("GDAL: {}", msg ? msg : "");
+  }
+}
+
+GdalErrorScope::GdalErrorScope() { CPLPushErrorHandlerEx(&GdalErrorScope::handler, this); }
+GdalErrorScope::~GdalErrorScope() { CPLPopErrorHandler(); }
+
+namespace {
+DatasetPtr open_with(const std::string& path, unsigned flags, const char* what) {
+  gdal_init();
+  GdalErrorScope errors;
+  auto* ds = GDALDataset::Open(path.c_str(), flags | GDAL_OF_VERBOSE_ERROR);
+  if (!ds) {
+    std::error_code ec;
+    bool is_file_path = path.find(':') == std::string::npos;
+    if (is_file_path && !std::filesystem::exists(path, ec)) {
+      throw_input_error(path, "file not found");
+    }
+    std::string detail = errors.last_failure();
+    throw_input_error(path, std::string("not ") + what + " GDAL can read" +
+                                (detail.empty() ? "" : " (" + detail + ")"));
+  }
+  return DatasetPtr(ds);
+}
+}  // namespace
+
+DatasetPtr open_raster(const std::string& path) {
+  return open_with(path, GDAL_OF_RASTER | GDAL_OF_READONLY, "a raster");
+}
+
+DatasetPtr open_vector(const std::string& path) {
+  return open_with(path, GDAL_OF_VECTOR | GDAL_OF_READONLY, "a vector source");
+}
+
+}  // namespace sheetmill
