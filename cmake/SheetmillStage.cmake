@@ -43,7 +43,6 @@ function(sheetmill_add_test_suites)
       add_executable(test_${name} ${tests})
       target_link_libraries(test_${name} PRIVATE sheetmill::${name} sheetmill_catch_main
                                                  sheetmill_test_support sheetmill_build_flags)
-      add_dependencies(test_${name} sheetmill)
       # Tests that shell out to the CLI or to GDAL/poppler tools run one process at a time per
       # suite; the suites themselves run in parallel under ctest -j.
       catch_discover_tests(test_${name} TEST_PREFIX "${name}: " DISCOVERY_TIMEOUT 60

@@ -1,0 +1,61 @@
+#pragma once
+// The page a sheet is drawn on. Drawing goes into named groups (relief, contours, water, grid,
+// names, ...) that become optional content groups in the PDF so a reader can switch them on and
+// off. finish() closes Cairo, adds the PDF structure (geospatial registration, optional content,
+// metadata) and writes the file at `path`. User space of every group is page millimetres, y down.
+
+#include <cairo.h>
+
+#include <filesystem>
+#include <memory>
+#include <string>
+#include <vector>
+
+#include "sheetmill/core/geometry.hpp"
+
+namespace sheetmill::pdf {
+
+// Where the map frame lies on the page and on the ground, for the geospatial viewport.
+struct GeoRegistration {
+  Box frame_page_mm;                  // the viewport (bounding box of the neatline on the page)
+  std::vector<Point> neatline_page_mm; // the neatline on the page
+  std::vector<Point> neatline_ground;  // the same corners in the sheet CRS
+  std::string crs_wkt;                 // sheet CRS (WKT)
+  int epsg = 0;
+};
+
+struct Metadata {
+  std::string title;
+  std::string subject;
+  std::string keywords;
+  std::string author;
+  std::string producer = "sheetmill";
+};
+
+class LayeredCanvas {
+ public:
+  LayeredCanvas(double page_width_mm, double page_height_mm);
+  ~LayeredCanvas();
+  LayeredCanvas(const LayeredCanvas&) = delete;
+  LayeredCanvas& operator=(const LayeredCanvas&) = delete;
+
+  // Starts drawing into the named group (created on first use; later calls append to it).
+  // The returned context is valid until end_group(); it is in page millimetres.
+  cairo_t* begin_group(const std::string& name);
+  void end_group();
+
+  double width_mm() const;
+  double height_mm() const;
+
+  // Writes the PDF to `path` (the caller makes it atomic). Throws Error on a Cairo or PDF fault.
+  void finish_pdf(const std::filesystem::path& path, const GeoRegistration& geo,
+                  const Metadata& meta);
+  // Rasterises every group onto a white page at `dpi` and writes a PNG.
+  void finish_png(const std::filesystem::path& path, double dpi);
+
+ private:
+  struct Impl;
+  std::unique_ptr<Impl> impl_;
+};
+
+}  // namespace sheetmill::pdf

@@ -1,0 +1,47 @@
+#pragma once
+// Rendering one sheet: the pipeline read -> prepare -> place -> draw -> finish, end to end.
+// render_sheet() is what `sheetmill render`, `sheetmill batch` and the tests call.
+
+#include <filesystem>
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "sheetmill/project/project.hpp"
+#include "sheetmill/style/style.hpp"
+
+namespace sheetmill::render {
+
+enum class OutputFormat { pdf, png, geotiff };
+
+struct RenderOptions {
+  OutputFormat format = OutputFormat::pdf;
+  double raster_dpi = 150;                   // PNG/GeoTIFF export
+  std::optional<std::string> sheet_id;       // overrides the project's extent with an index sheet
+};
+
+struct LayerReport {
+  std::string layer;
+  long features = 0;
+  long labels_placed = 0;
+  long labels_dropped = 0;
+};
+
+struct RenderReport {
+  std::filesystem::path output;
+  std::vector<std::string> warnings;
+  std::vector<LayerReport> layers;
+  double seconds_total = 0;
+  double seconds_relief = 0;
+  double seconds_contours = 0;
+  double seconds_features = 0;
+  double seconds_labels = 0;
+  double seconds_finish = 0;
+};
+
+// Renders the project's sheet to `output` atomically (temporary file, then rename). Throws
+// Error(input) for bad inputs; the output either appears complete or not at all.
+RenderReport render_sheet(const project::Project& project, const style::Style& style,
+                          const std::filesystem::path& output, const RenderOptions& options = {});
+
+}  // namespace sheetmill::render

@@ -1,0 +1,291 @@
+#include "sheetmill/text/shaping.hpp"
+
+#include <cairo.h>
+#include <hb.h>
+
+#include <cmath>
+
+#include "sheetmill/core/units.hpp"
+
+namespace sheetmill::text {
+
+namespace {
+
+// Decodes one UTF-8 code point at s[i]; advances i. Invalid bytes decode as U+FFFD.
+char32_t next_codepoint(std::string_view s, std::size_t& i) {
+  auto c = static_cast<unsigned char>(s[i]);
+  int len = c < 0x80 ? 1 : (c >> 5) == 6 ? 2 : (c >> 4) == 14 ? 3 : (c >> 3) == 30 ? 4 : 0;
+  if (len == 0 || i + len > s.size()) {
+    ++i;
+    return 0xFFFD;
+  }
+  char32_t cp = len == 1 ? c : c & (0x7F >> len);
+  for (int k = 1; k < len; ++k) cp = (cp << 6) | (static_cast<unsigned char>(s[i + k]) & 0x3F);
+  i += len;
+  return cp;
+}
+
+// Characters that take the font of their neighbours rather than forcing a fallback.
+bool is_neutral(char32_t cp) {
+  return cp == ' ' || cp == 0x00A0 || (cp >= 0x0300 && cp <= 0x036F) || cp == 0x200B ||
+         cp == 0x200C || cp == 0x200D;
+}
+
+struct Span {
+  const Font* font;
+  uint32_t begin, end;
+};
+
+// Splits the text into spans, each in the first face (primary, then fontconfig's fallbacks) that
+// has the code point's glyph.
+std::vector<Span> itemise(FontCache& fonts, const FontKey& key, std::string_view utf8) {
+  const Font& primary = fonts.primary(key);
+  std::vector<Span> spans;
+  std::size_t i = 0;
+  while (i < utf8.size()) {
+    std::size_t start = i;
+    char32_t cp = next_codepoint(utf8, i);
+    const Font* font = &primary;
+    if (!is_neutral(cp) && !primary.has_glyph(cp)) {
+      for (const Font* f : fonts.fallbacks(key)) {
+        if (f->has_glyph(cp)) {
+          font = f;
+          break;
+        }
+      }
+    }
+    if (!spans.empty() && (spans.back().font == font || is_neutral(cp))) {
+      spans.back().end = static_cast<uint32_t>(i);
+    } else {
+      spans.push_back({font, static_cast<uint32_t>(start), static_cast<uint32_t>(i)});
+    }
+  }
+  return spans;
+}
+
+}  // namespace
+
+ShapedText shape(FontCache& fonts, const FontKey& key, double size_pt, std::string_view utf8,
+                 double letter_spacing_em) {
+  ShapedText out;
+  out.utf8 = std::string(utf8);
+  out.size_pt = size_pt;
+  const double size_mm = size_pt * kMmPerPt;
+  double pen = 0;
+  const Font& primary = fonts.primary(key);
+  out.ascent_mm = primary.ascender_em() * size_mm;
+  out.descent_mm = primary.descender_em() * size_mm;
+  HbBufferPtr buf(hb_buffer_create());
+  for (const Span& span : itemise(fonts, key, out.utf8)) {
+    hb_buffer_clear_contents(buf.get());
+    // The whole text is context; only the span is shaped, so clusters are offsets into utf8.
+    hb_buffer_add_utf8(buf.get(), out.utf8.data(), static_cast<int>(out.utf8.size()), span.begin,
+                       static_cast<int>(span.end - span.begin));
+    hb_buffer_guess_segment_properties(buf.get());
+    hb_shape(span.font->hb(), buf.get(), nullptr, 0);
+    unsigned n = 0;
+    hb_glyph_info_t* info = hb_buffer_get_glyph_infos(buf.get(), &n);
+    hb_glyph_position_t* pos = hb_buffer_get_glyph_positions(buf.get(), &n);
+    const double k = size_mm / span.font->units_per_em();
+    ShapedRun run;
+    run.font = span.font;
+    run.byte_begin = span.begin;
+    run.byte_end = span.end;
+    for (unsigned g = 0; g < n; ++g) {
+      ShapedGlyph sg;
+      sg.glyph_id = info[g].codepoint;
+      sg.cluster = info[g].cluster;
+      sg.x_mm = pen + pos[g].x_offset * k;
+      sg.y_mm = -pos[g].y_offset * k;
+      sg.advance_mm = pos[g].x_advance * k;
+      pen += sg.advance_mm;
+      bool cluster_ends = g + 1 == n || info[g + 1].cluster != info[g].cluster;
+      if (letter_spacing_em != 0 && cluster_ends) pen += letter_spacing_em * size_mm;
+      run.glyphs.push_back(sg);
+    }
+    out.ascent_mm = std::max(out.ascent_mm, span.font->ascender_em() * size_mm);
+    out.descent_mm = std::max(out.descent_mm, span.font->descender_em() * size_mm);
+    out.runs.push_back(std::move(run));
+  }
+  // Letter spacing is between letters: none after the last one.
+  if (letter_spacing_em != 0 && !out.runs.empty()) pen -= letter_spacing_em * size_mm;
+  out.width_mm = pen;
+  return out;
+}
+
+namespace {
+
+// Glyphs and clusters of one run for cairo_show_text_glyphs, so the PDF carries the text itself
+// (searchable, selectable), not just glyph shapes.
+struct CairoRun {
+  std::vector<cairo_glyph_t> glyphs;
+  std::vector<cairo_text_cluster_t> clusters;
+  cairo_text_cluster_flags_t flags = cairo_text_cluster_flags_t(0);
+  bool clusters_ok = true;
+};
+
+CairoRun cairo_run(const ShapedRun& run, double dx, double dy) {
+  CairoRun cr;
+  for (const auto& g : run.glyphs) {
+    cr.glyphs.push_back({g.glyph_id, dx + g.x_mm, dy + g.y_mm});
+  }
+  const auto& gl = run.glyphs;
+  if (gl.empty()) return cr;
+  bool backward = gl.size() > 1 && gl.front().cluster > gl.back().cluster;
+  if (backward) cr.flags = CAIRO_TEXT_CLUSTER_FLAG_BACKWARD;
+  std::size_t i = 0;
+  while (i < gl.size()) {
+    std::size_t j = i;
+    while (j < gl.size() && gl[j].cluster == gl[i].cluster) ++j;
+    uint32_t start = gl[i].cluster;
+    uint32_t next = run.byte_end;
+    if (!backward && j < gl.size()) next = gl[j].cluster;
+    if (backward && i > 0) next = gl[i - 1].cluster;
+    if (next <= start) {
+      cr.clusters_ok = false;
+      break;
+    }
+    cr.clusters.push_back({static_cast<int>(next - start), static_cast<int>(j - i)});
+    i = j;
+  }
+  return cr;
+}
+
+void set_colour(cairo_t* cr, const Colour& c) { cairo_set_source_rgba(cr, c.r, c.g, c.b, c.a); }
+
+void show_run(cairo_t* cr, const std::string& utf8, const ShapedRun& run, const CairoRun& g) {
+  uint32_t first = g.flags ? run.glyphs.back().cluster : run.glyphs.front().cluster;
+  if (g.clusters_ok && !g.clusters.empty()) {
+    int bytes = 0;
+    for (const auto& c : g.clusters) bytes += c.num_bytes;
+    cairo_show_text_glyphs(cr, utf8.data() + first, bytes, g.glyphs.data(),
+                           static_cast<int>(g.glyphs.size()), g.clusters.data(),
+                           static_cast<int>(g.clusters.size()), g.flags);
+  } else {
+    cairo_show_glyphs(cr, g.glyphs.data(), static_cast<int>(g.glyphs.size()));
+  }
+}
+
+void paint_runs(cairo_t* cr, const ShapedText& text, const std::vector<CairoRun>& runs,
+                const TextPaint& paint) {
+  const double size_mm = text.size_pt * kMmPerPt;
+  if (paint.halo && paint.halo_width_mm > 0) {
+    cairo_save(cr);
+    cairo_new_path(cr);
+    for (std::size_t r = 0; r < runs.size(); ++r) {
+      cairo_set_font_face(cr, text.runs[r].font->cairo_face());
+      cairo_set_font_size(cr, size_mm);
+      cairo_glyph_path(cr, runs[r].glyphs.data(), static_cast<int>(runs[r].glyphs.size()));
+    }
+    set_colour(cr, paint.halo_colour);
+    cairo_set_line_width(cr, 2 * paint.halo_width_mm);
+    cairo_set_line_join(cr, CAIRO_LINE_JOIN_ROUND);
+    cairo_stroke(cr);
+    cairo_restore(cr);
+  }
+  set_colour(cr, paint.colour);
+  for (std::size_t r = 0; r < runs.size(); ++r) {
+    cairo_set_font_face(cr, text.runs[r].font->cairo_face());
+    cairo_set_font_size(cr, size_mm);
+    show_run(cr, text.utf8, text.runs[r], runs[r]);
+  }
+}
+
+}  // namespace
+
+void draw_text(cairo_t* cr, const ShapedText& text, Point origin_mm, double angle_rad,
+               const TextPaint& paint) {
+  if (text.empty()) return;
+  cairo_save(cr);
+  cairo_translate(cr, origin_mm.x, origin_mm.y);
+  cairo_rotate(cr, angle_rad);
+  std::vector<CairoRun> runs;
+  for (const auto& run : text.runs) runs.push_back(cairo_run(run, 0, 0));
+  paint_runs(cr, text, runs, paint);
+  cairo_restore(cr);
+}
+
+std::vector<PlacedGlyph> layout_on_path(const ShapedText& text, const Polyline& path,
+                                        double start_mm, double max_bend_deg,
+                                        double baseline_shift_mm) {
+  std::vector<PlacedGlyph> out;
+  if (path.size() < 2) return out;
+  std::vector<double> along(path.size(), 0);
+  for (std::size_t i = 1; i < path.size(); ++i) along[i] = along[i - 1] + distance(path[i - 1], path[i]);
+  std::size_t seg = 0;
+  double prev_angle = 0;
+  bool have_prev = false;
+  for (std::size_t r = 0; r < text.runs.size(); ++r) {
+    const auto& run = text.runs[r];
+    for (std::size_t g = 0; g < run.glyphs.size(); ++g) {
+      const auto& gl = run.glyphs[g];
+      double mid = start_mm + gl.x_mm + gl.advance_mm / 2;
+      if (mid < 0 || mid > along.back()) return {};
+      while (seg + 2 < path.size() && along[seg + 1] < mid) ++seg;
+      while (seg > 0 && along[seg] > mid) --seg;
+      Point a = path[seg], b = path[seg + 1];
+      double len = along[seg + 1] - along[seg];
+      if (len <= 0) return {};
+      Point dir = (b - a) * (1.0 / len);
+      Point centre = a + dir * (mid - along[seg]);
+      double angle = std::atan2(dir.y, dir.x);
+      if (have_prev) {
+        double bend = std::remainder(angle - prev_angle, 2 * kPi);
+        if (std::abs(bend) > max_bend_deg * kDegToRad) return {};
+      }
+      prev_angle = angle;
+      have_prev = true;
+      // Normal pointing to the glyph's "up" (negative y in the glyph's frame).
+      Point up{dir.y, -dir.x};
+      Point origin = centre - dir * (gl.advance_mm / 2) + up * baseline_shift_mm;
+      origin = origin + up * (-gl.y_mm);
+      out.push_back({r, g, origin, angle});
+    }
+  }
+  return out;
+}
+
+void draw_placed_glyphs(cairo_t* cr, const ShapedText& text,
+                        const std::vector<PlacedGlyph>& glyphs, const TextPaint& paint) {
+  const double size_mm = text.size_pt * kMmPerPt;
+  // Two passes so no glyph's halo covers a neighbour's ink.
+  for (int pass = paint.halo ? 0 : 1; pass < 2; ++pass) {
+    for (const auto& pg : glyphs) {
+      const ShapedRun& run = text.runs[pg.run];
+      const ShapedGlyph& g = run.glyphs[pg.index];
+      cairo_save(cr);
+      cairo_translate(cr, pg.origin_mm.x, pg.origin_mm.y);
+      cairo_rotate(cr, pg.angle_rad);
+      cairo_set_font_face(cr, run.font->cairo_face());
+      cairo_set_font_size(cr, size_mm);
+      cairo_glyph_t cg{g.glyph_id, 0, 0};
+      if (pass == 0) {
+        cairo_new_path(cr);
+        cairo_glyph_path(cr, &cg, 1);
+        set_colour(cr, paint.halo_colour);
+        cairo_set_line_width(cr, 2 * paint.halo_width_mm);
+        cairo_set_line_join(cr, CAIRO_LINE_JOIN_ROUND);
+        cairo_stroke(cr);
+      } else {
+        set_colour(cr, paint.colour);
+        // The glyph's own cluster text keeps the label extractable letter by letter.
+        uint32_t begin = g.cluster;
+        uint32_t end = run.byte_end;
+        for (const auto& other : run.glyphs) {
+          if (other.cluster > begin && other.cluster < end) end = other.cluster;
+        }
+        bool first_of_cluster = pg.index == 0 || run.glyphs[pg.index - 1].cluster != g.cluster;
+        if (first_of_cluster && end > begin) {
+          cairo_text_cluster_t cl{static_cast<int>(end - begin), 1};
+          cairo_show_text_glyphs(cr, text.utf8.data() + begin, static_cast<int>(end - begin), &cg,
+                                 1, &cl, 1, cairo_text_cluster_flags_t(0));
+        } else {
+          cairo_show_glyphs(cr, &cg, 1);
+        }
+      }
+      cairo_restore(cr);
+    }
+  }
+}
+
+}  // namespace sheetmill::text
