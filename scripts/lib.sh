@@ -9,8 +9,10 @@ SHEETMILL_PACKAGES=(
   build-essential cmake pkg-config
   libgdal-dev gdal-bin libproj-dev proj-bin proj-data
   libcairo2-dev libharfbuzz-dev libfreetype-dev libfontconfig-dev
-  libyaml-cpp-dev libfmt-dev libhwy-dev libqpdf-dev libcli11-dev catch2
+  libyaml-cpp-dev libfmt-dev libhwy-dev libqpdf-dev libcli11-dev catch2 libpng-dev
   fonts-dejavu-core fonts-noto-core poppler-utils qpdf python3
+  python3-yaml python3-jsonschema
+  slurm-wlm munge
 )
 
 sheetmill_install_packages() {

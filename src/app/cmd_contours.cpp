@@ -1,8 +1,53 @@
-// PLACEHOLDER: replaced by the stage that owns this command.
+// `sheetmill contours DEM OUT.gpkg --interval I [--base B] [--index-every N]`: contour lines
+// prepared for print, written to a GeoPackage with elevation, index, depression and
+// supplementary fields. Thin: parses options and calls sheetmill::contours::contour_file().
+#include <memory>
+#include <string>
+
 #include "app/commands.hpp"
+#include "sheetmill/contours/contour_layer.hpp"
+#include "sheetmill/core/log.hpp"
 
 namespace sheetmill::app {
 
-void add_contours_command(CLI::App&, Action&, const GlobalOptions&) {}
+void add_contours_command(CLI::App& app, Action& action, const GlobalOptions&) {
+  struct Args {
+    std::string dem;
+    std::string out;
+    contours::ContourParams params;
+    bool raw = false;
+  };
+  auto args = std::make_shared<Args>();
+  args->params.interval_m = 0;  // 0: proposed from the scale and the relief
+  CLI::App* cmd = app.add_subcommand(
+      "contours", "Contour lines from a DEM, prepared for print, into a GeoPackage");
+  cmd->add_option("DEM", args->dem, "Elevation raster (any GDAL raster)")->required();
+  cmd->add_option("OUT", args->out, "Output GeoPackage (.gpkg)")->required();
+  cmd->add_option("--interval", args->params.interval_m,
+                  "Contour interval in metres (default: proposed from the scale and relief)");
+  cmd->add_option("--base", args->params.base_m, "Level the intervals count from, metres")
+      ->capture_default_str();
+  cmd->add_option("--index-every", args->params.index_every, "Every Nth line is an index contour")
+      ->capture_default_str();
+  cmd->add_option("--scale", args->params.scale_denominator,
+                  "Scale denominator N of 1:N the lines are prepared for")
+      ->capture_default_str();
+  cmd->add_option("--smoothing", args->params.smoothing_mm, "Generalisation tolerance, mm on paper")
+      ->capture_default_str();
+  cmd->add_option("--min-loop", args->params.min_loop_mm,
+                  "Closed loops shorter than this on paper are dropped, mm")
+      ->capture_default_str();
+  cmd->add_flag("--half-interval", args->params.supplementary,
+                "Add half-interval lines where the ground is gentle");
+  cmd->add_flag("--raw", args->raw, "Write the generator's lines without smoothing or thinning");
+  cmd->callback([&action, args] {
+    action = [args] {
+      auto r = contours::contour_file(args->dem, args->out, args->params, !args->raw);
+      log::info("contours: wrote {} ({} lines at {} m, {} vertices, {:.1f} km)", args->out,
+                r.lines, r.interval_m, r.vertices, r.length_m / 1000);
+      return 0;
+    };
+  });
+}
 
 }  // namespace sheetmill::app

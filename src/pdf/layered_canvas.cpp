@@ -1,7 +1,22 @@
 #include "sheetmill/pdf/layered_canvas.hpp"
 
 #include <cairo-pdf.h>
+// qpdf 11: use std::shared_ptr throughout, no PointerHolder (see qpdf/PointerHolder.hh).
+#ifndef POINTERHOLDER_TRANSITION
+#define POINTERHOLDER_TRANSITION 4
+#endif
+#include <ctime>
+#include <qpdf/QPDF.hh>
+#include <qpdf/QPDFExc.hh>
+#include <qpdf/QPDFObjectHandle.hh>
+#include <qpdf/QPDFPageDocumentHelper.hh>
+#include <qpdf/QPDFPageObjectHelper.hh>
+#include <qpdf/QPDFWriter.hh>
+#include <system_error>
 
+#include "pdf/geo_viewport.hpp"
+#include "pdf/raster_export.hpp"
+#include "sheetmill/core/atomic_file.hpp"
 #include "sheetmill/core/error.hpp"
 #include "sheetmill/core/handles.hpp"
 #include "sheetmill/core/units.hpp"
@@ -30,8 +45,18 @@ LayeredCanvas::LayeredCanvas(double page_width_mm, double page_height_mm)
 
 LayeredCanvas::~LayeredCanvas() = default;
 
-double LayeredCanvas::width_mm() const { return impl_->width_mm; }
-double LayeredCanvas::height_mm() const { return impl_->height_mm; }
+double LayeredCanvas::width_mm() const {
+  return impl_->width_mm;
+}
+double LayeredCanvas::height_mm() const {
+  return impl_->height_mm;
+}
+
+std::vector<std::string> LayeredCanvas::group_names() const {
+  std::vector<std::string> names;
+  for (const auto& g : impl_->groups) names.push_back(g.name);
+  return names;
+}
 
 cairo_t* LayeredCanvas::begin_group(const std::string& name) {
   if (impl_->current) throw_internal_error("begin_group(" + name + ") inside another group");
@@ -41,8 +66,8 @@ cairo_t* LayeredCanvas::begin_group(const std::string& name) {
   }
   if (!group) {
     cairo_rectangle_t extents{0, 0, impl_->width_mm, impl_->height_mm};
-    impl_->groups.push_back(
-        {name, CairoSurfacePtr(cairo_recording_surface_create(CAIRO_CONTENT_COLOR_ALPHA, &extents))});
+    impl_->groups.push_back({name, CairoSurfacePtr(cairo_recording_surface_create(
+                                       CAIRO_CONTENT_COLOR_ALPHA, &extents))});
     group = &impl_->groups.back();
   }
   impl_->current.reset(cairo_create(group->recording.get()));
@@ -57,32 +82,139 @@ void LayeredCanvas::end_group() {
 }
 
 namespace {
+
 void replay(cairo_t* cr, cairo_surface_t* recording) {
   cairo_save(cr);
   cairo_set_source_surface(cr, recording, 0, 0);
   cairo_paint(cr);
   cairo_restore(cr);
 }
+
+// "D:YYYYMMDDHHmmSSZ", the PDF date format (ISO 32000-1 section 7.9.4), in UTC.
+std::string pdf_date_now() {
+  std::time_t t = std::time(nullptr);
+  std::tm tm{};
+  gmtime_r(&t, &tm);
+  char buf[32];
+  std::strftime(buf, sizeof buf, "D:%Y%m%d%H%M%SZ", &tm);
+  return buf;
+}
+
+// Removes a temporary file when it goes out of scope.
+struct TempFile {
+  std::filesystem::path path;
+  ~TempFile() {
+    std::error_code ec;
+    std::filesystem::remove(path, ec);
+  }
+};
+
+// A name usable as a PDF name token and an XObject key: letters and digits only.
+std::string key_for(const std::string& prefix, std::size_t i) {
+  return "/" + prefix + std::to_string(i + 1);
+}
+
 }  // namespace
 
-void LayeredCanvas::finish_pdf(const std::filesystem::path& path, const GeoRegistration&,
+void LayeredCanvas::finish_pdf(const std::filesystem::path& path, const GeoRegistration& geo,
                                const Metadata& meta) {
   end_group();
-  CairoSurfacePtr surface(cairo_pdf_surface_create(path.c_str(), impl_->width_mm * kPtPerMm,
-                                                   impl_->height_mm * kPtPerMm));
-  check_cairo(cairo_surface_status(surface.get()), "creating the PDF");
-  cairo_pdf_surface_set_metadata(surface.get(), CAIRO_PDF_METADATA_TITLE, meta.title.c_str());
-  cairo_pdf_surface_set_metadata(surface.get(), CAIRO_PDF_METADATA_SUBJECT, meta.subject.c_str());
-  cairo_pdf_surface_set_metadata(surface.get(), CAIRO_PDF_METADATA_KEYWORDS,
-                                 meta.keywords.c_str());
-  cairo_pdf_surface_set_metadata(surface.get(), CAIRO_PDF_METADATA_CREATOR, meta.producer.c_str());
-  CairoPtr cr(cairo_create(surface.get()));
-  cairo_scale(cr.get(), kPtPerMm, kPtPerMm);
-  for (const auto& g : impl_->groups) replay(cr.get(), g.recording.get());
-  check_cairo(cairo_status(cr.get()), "writing the PDF");
-  cr.reset();
-  cairo_surface_finish(surface.get());
-  check_cairo(cairo_surface_status(surface.get()), "finishing the PDF");
+  const double w_pt = impl_->width_mm * kPtPerMm, h_pt = impl_->height_mm * kPtPerMm;
+
+  // 1. Cairo: one page per group, so each group's fonts and images are its own resources.
+  TempFile pages{sibling_temp_path(path, "groups")};
+  {
+    CairoSurfacePtr surface(cairo_pdf_surface_create(pages.path.c_str(), w_pt, h_pt));
+    check_cairo(cairo_surface_status(surface.get()), "creating the PDF");
+    CairoPtr cr(cairo_create(surface.get()));
+    cairo_scale(cr.get(), kPtPerMm, kPtPerMm);
+    if (impl_->groups.empty()) cairo_show_page(cr.get());
+    for (const auto& g : impl_->groups) {
+      replay(cr.get(), g.recording.get());
+      cairo_show_page(cr.get());
+    }
+    check_cairo(cairo_status(cr.get()), "writing the PDF");
+    cr.reset();
+    cairo_surface_finish(surface.get());
+    check_cairo(cairo_surface_status(surface.get()), "finishing the PDF");
+  }
+
+  // 2. qpdf: every group page becomes a form XObject shown on the first page inside its
+  //    optional content group; the other pages go.
+  try {
+    QPDF pdf;
+    pdf.processFile(pages.path.c_str());
+    QPDFPageDocumentHelper doc(pdf);
+    std::vector<QPDFPageObjectHelper> all = doc.getAllPages();
+    std::size_t n = impl_->groups.size();
+    if (n > 0 && all.size() != n) throw_internal_error("PDF page count differs from the groups");
+
+    auto xobjects = QPDFObjectHandle::newDictionary();
+    auto properties = QPDFObjectHandle::newDictionary();
+    auto ocgs = QPDFObjectHandle::newArray();
+    std::string content;
+    for (std::size_t i = 0; i < n; ++i) {
+      QPDFObjectHandle form = all[i].getFormXObjectForPage();
+      auto ocg = QPDFObjectHandle::newDictionary();
+      ocg.replaceKey("/Type", QPDFObjectHandle::newName("/OCG"));
+      ocg.replaceKey("/Name", QPDFObjectHandle::newUnicodeString(impl_->groups[i].name));
+      ocg = pdf.makeIndirectObject(ocg);
+      ocgs.appendItem(ocg);
+      std::string fx = key_for("Fx", i), oc = key_for("oc", i);
+      xobjects.replaceKey(fx, form);
+      properties.replaceKey(oc, ocg);
+      // Marked content tagged /OC with the group's property name (ISO 32000-1 section 8.11.3.2).
+      content += "/OC " + oc + " BDC " + fx + " Do EMC\n";
+    }
+
+    QPDFObjectHandle page = all.front().getObjectHandle();
+    auto resources = QPDFObjectHandle::newDictionary();
+    resources.replaceKey("/XObject", xobjects);
+    resources.replaceKey("/Properties", properties);
+    page.replaceKey("/Resources", resources);
+    page.replaceKey("/Contents", QPDFObjectHandle::newStream(&pdf, content));
+    for (std::size_t i = 1; i < all.size(); ++i) doc.removePage(all[i]);
+
+    QPDFObjectHandle root = pdf.getRoot();
+    if (n > 0) {
+      auto d = QPDFObjectHandle::newDictionary();
+      d.replaceKey("/Name", QPDFObjectHandle::newUnicodeString("Sheet layers"));
+      d.replaceKey("/BaseState", QPDFObjectHandle::newName("/ON"));
+      d.replaceKey("/Order", ocgs);
+      d.replaceKey("/ON", ocgs);
+      auto props = QPDFObjectHandle::newDictionary();
+      props.replaceKey("/OCGs", ocgs);
+      props.replaceKey("/D", d);
+      root.replaceKey("/OCProperties", props);
+      root.replaceKey("/PageMode", QPDFObjectHandle::newName("/UseOC"));
+    }
+    if (!geo.crs_wkt.empty()) page.replaceKey("/VP", make_viewport_array(pdf, geo, h_pt));
+
+    auto info = QPDFObjectHandle::newDictionary();
+    auto text = [&](const char* key, const std::string& v) {
+      if (!v.empty()) info.replaceKey(key, QPDFObjectHandle::newUnicodeString(v));
+    };
+    text("/Title", meta.title);
+    text("/Subject", meta.subject);
+    text("/Keywords", meta.keywords);
+    text("/Author", meta.author);
+    text("/Creator", "sheetmill");
+    text("/Producer", meta.producer);
+    std::string now = pdf_date_now();
+    info.replaceKey("/CreationDate", QPDFObjectHandle::newString(now));
+    info.replaceKey("/ModDate", QPDFObjectHandle::newString(now));
+    pdf.getTrailer().replaceKey("/Info", pdf.makeIndirectObject(info));
+
+    QPDFWriter writer(pdf, path.c_str());
+    writer.setObjectStreamMode(qpdf_o_generate);
+    writer.setCompressStreams(true);
+    writer.setMinimumPDFVersion("1.7");
+    writer.write();
+  } catch (const Error&) {
+    throw;
+  } catch (const std::exception& e) {
+    throw_internal_error(std::string("building the layered PDF with qpdf: ") + e.what());
+  }
 }
 
 void LayeredCanvas::finish_png(const std::filesystem::path& path, double dpi) {
@@ -99,6 +231,32 @@ void LayeredCanvas::finish_png(const std::filesystem::path& path, double dpi) {
   check_cairo(cairo_status(cr.get()), "drawing the image");
   cr.reset();
   check_cairo(cairo_surface_write_to_png(surface.get(), path.c_str()), "writing the PNG");
+}
+
+void LayeredCanvas::finish_geotiff(const std::filesystem::path& path, double dpi,
+                                   const GeoRegistration& geo) {
+  end_group();
+  if (!(dpi > 0)) throw_input_error(path.string(), "the raster dpi must be positive");
+  int w = static_cast<int>(impl_->width_mm / kMmPerInch * dpi + 0.5);
+  int h = static_cast<int>(impl_->height_mm / kMmPerInch * dpi + 0.5);
+  // The frame is a similarity page <-> ground (no rotation): the ground bounding box of the
+  // neatline matches its page bounding box corner to corner.
+  Box g;
+  for (Point p : geo.neatline_ground) g.add(p);
+  const Box& f = geo.frame_page_mm;
+  if (g.empty() || f.empty()) throw_internal_error("finish_geotiff: empty map frame");
+  double m_per_mm = g.width() / f.width();
+  double px_mm = kMmPerInch / dpi;
+  std::array<double, 6> gt{g.min_x - f.min_x * m_per_mm,
+                           px_mm * m_per_mm,
+                           0,
+                           g.max_y + f.min_y * m_per_mm,
+                           0,
+                           -px_mm * m_per_mm};
+  write_geotiff_strips(path, w, h, gt, geo.crs_wkt, [&](cairo_t* cr) {
+    cairo_scale(cr, dpi / kMmPerInch, dpi / kMmPerInch);
+    for (const auto& grp : impl_->groups) replay(cr, grp.recording.get());
+  });
 }
 
 }  // namespace sheetmill::pdf

@@ -3,6 +3,10 @@
 // names, ...) that become optional content groups in the PDF so a reader can switch them on and
 // off. finish() closes Cairo, adds the PDF structure (geospatial registration, optional content,
 // metadata) and writes the file at `path`. User space of every group is page millimetres, y down.
+//
+// Groups are composed in the order they were first begun (the first is at the bottom). The PDF
+// keeps vectors as vectors and text as text (extractable); the raster exports rasterise the very
+// same recordings.
 
 #include <cairo.h>
 
@@ -17,10 +21,10 @@ namespace sheetmill::pdf {
 
 // Where the map frame lies on the page and on the ground, for the geospatial viewport.
 struct GeoRegistration {
-  Box frame_page_mm;                  // the viewport (bounding box of the neatline on the page)
-  std::vector<Point> neatline_page_mm; // the neatline on the page
-  std::vector<Point> neatline_ground;  // the same corners in the sheet CRS
-  std::string crs_wkt;                 // sheet CRS (WKT)
+  Box frame_page_mm;                    // the viewport (bounding box of the neatline on the page)
+  std::vector<Point> neatline_page_mm;  // the neatline on the page
+  std::vector<Point> neatline_ground;   // the same corners in the sheet CRS
+  std::string crs_wkt;                  // sheet CRS (WKT)
   int epsg = 0;
 };
 
@@ -46,12 +50,22 @@ class LayeredCanvas {
 
   double width_mm() const;
   double height_mm() const;
+  // The group names in composition order.
+  std::vector<std::string> group_names() const;
 
-  // Writes the PDF to `path` (the caller makes it atomic). Throws Error on a Cairo or PDF fault.
+  // Writes the PDF to `path` (the caller makes it atomic): one page whose content shows each
+  // group as a form XObject inside its optional content group, the map frame registered as an
+  // ISO 32000-2 geospatial viewport, and the document information. Written with qpdf after
+  // Cairo finishes. Throws Error on a Cairo or PDF fault. An empty `geo.crs_wkt` writes no
+  // viewport.
   void finish_pdf(const std::filesystem::path& path, const GeoRegistration& geo,
                   const Metadata& meta);
   // Rasterises every group onto a white page at `dpi` and writes a PNG.
   void finish_png(const std::filesystem::path& path, double dpi);
+  // The same raster as an RGB GeoTIFF: the map frame's ground transform applied to the page
+  // raster (pixel (0,0) is the page's top-left corner), CRS from `geo`. Rendered in strips, so
+  // memory stays at a few rows of the page.
+  void finish_geotiff(const std::filesystem::path& path, double dpi, const GeoRegistration& geo);
 
  private:
   struct Impl;

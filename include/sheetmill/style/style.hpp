@@ -145,6 +145,7 @@ struct Layer {
   double max_scale = 0;
   int order = 0;             // draw order; lower first; ties keep file order
   bool obstacle = false;     // labels avoid this layer's symbols
+  bool water_surface = false; // its areas are water (lakes, ponds): contours are clipped out
   std::vector<Rule> rules;   // first matching rule wins
   std::optional<LabelStyle> label;
 };

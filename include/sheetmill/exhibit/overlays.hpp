@@ -1,0 +1,52 @@
+#pragma once
+// The vector overlays of an exhibit, read once for the frame and kept as page-millimetre
+// geometry (bounded by the sheet: only features inside the frame, clipped to it).
+//
+// Draw order (draw_overlays): water areas (soft shade and outline), water lines, roads, the
+// veil outside the focus areas, area outlines (a white casing under the colour), then place
+// callouts (dot, leader and boxed name), which avoid each other through a CollisionIndex.
+
+#include <cairo.h>
+
+#include <string>
+#include <vector>
+
+#include "sheetmill/core/geometry.hpp"
+#include "sheetmill/core/map_frame.hpp"
+#include "sheetmill/exhibit/exhibit_project.hpp"
+#include "sheetmill/exhibit/type_scale.hpp"
+#include "sheetmill/text/font.hpp"
+
+namespace sheetmill::exhibit {
+
+struct PageArea {
+  std::vector<Polyline> rings;  // outer rings and holes, page mm
+};
+
+struct Place {
+  std::string name;
+  Point at_mm;
+};
+
+struct OverlayData {
+  std::vector<PageArea> water_areas;
+  std::vector<Polyline> water_lines;
+  std::vector<Polyline> roads;
+  std::vector<std::vector<PageArea>> areas;  // parallel to ExhibitProject::areas
+  std::vector<PageArea> veil;                // the frame minus the focus areas (even-odd)
+  std::vector<Place> places;
+};
+
+// Reads every overlay layer of the project for `frame`. Missing files throw Error(input).
+OverlayData read_overlays(const ExhibitProject& project, const MapFrame& frame);
+
+struct CalloutReport {
+  int placed_free = 0;     // placed without touching another callout
+  int placed_forced = 0;   // every position collided; placed at the first one anyway
+};
+
+CalloutReport draw_overlays(cairo_t* cr, const ExhibitProject& project, const MapFrame& frame,
+                            const OverlayData& data, const TypeScale& type,
+                            text::FontCache& fonts);
+
+}  // namespace sheetmill::exhibit

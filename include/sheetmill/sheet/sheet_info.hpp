@@ -1,0 +1,64 @@
+#pragma once
+// What the collar says about a sheet, gathered before drawing (so no drawing routine opens a
+// file): identity, neighbours, datums, magnetic and grid north, sources and producer.
+//
+// describe_sheet() reads the magnetic model file when the project names one (geomag::Model) and
+// uses the tile index the caller passes (when null and the layout frames an index sheet, it
+// reads the project's index itself). Fields the render knows better (contour
+// interval, vertical datum when the DEM states it) may be overwritten by the caller afterwards.
+
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "sheetmill/core/geometry.hpp"
+#include "sheetmill/project/project.hpp"
+#include "sheetmill/sheet/layout.hpp"
+#include "sheetmill/sheet/tile_index.hpp"
+
+namespace sheetmill::sheet {
+
+// North at the sheet centre. All angles in degrees measured from true north, east positive.
+struct NorthInfo {
+  Point centre_lonlat;                      // where the values hold
+  double grid_convergence_deg = 0;          // true north -> grid north
+  double scale_factor = 1;                  // point scale factor at the centre
+  std::optional<double> declination_deg;    // true north -> magnetic north
+  std::optional<double> annual_change_deg;  // of the declination, degrees per year
+  std::string date;                         // the date the declination holds for ("2026-12-01")
+  std::string source;                       // "WMM-2025" or "stated in the project"
+  // Grid north -> magnetic north (declination minus convergence); absent without declination.
+  std::optional<double> grid_magnetic_angle_deg() const {
+    if (!declination_deg) return std::nullopt;
+    return *declination_deg - grid_convergence_deg;
+  }
+};
+
+struct AdjoiningSheet {
+  std::string id;
+  std::string name;
+  int column = 0;  // -1 west, 0, +1 east
+  int row = 0;     // -1 north, 0, +1 south
+};
+
+struct SheetInfo {
+  std::string sheet_id;
+  std::string sheet_name;
+  std::vector<AdjoiningSheet> neighbours;
+  std::vector<std::vector<Point>> index_outlines;  // every index sheet, ground (location diagram)
+  std::string location_caption;   // what index_outlines shows ("Sheets of the index", ...)
+  double contour_interval_m = 0;  // 0: no contours on this sheet
+  std::string vertical_datum;
+  std::string crs_name;
+  std::string datum_name;
+  std::string projection_name;
+  int epsg = 0;
+  double grid_interval_m = 0;
+  std::vector<std::string> scale_bar_units{"m"};  // "m", "ft", "mi", one bar each
+  NorthInfo north;
+};
+
+SheetInfo describe_sheet(const project::Project& project, const Layout& layout,
+                         const TileIndexContents* index = nullptr);
+
+}  // namespace sheetmill::sheet

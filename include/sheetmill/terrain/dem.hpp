@@ -1,0 +1,61 @@
+#pragma once
+// Elevation grids for relief and contours, and reading them from any GDAL raster.
+//
+// A Dem is a north-up grid of elevations in metres, NaN where the source has no data. It owns
+// its cells. Its ground cell size is in metres: for a grid in a projected CRS the cell size
+// times the CRS's linear unit; for a geographic grid (degrees) the length of a cell's sides on
+// the ellipsoid at each row's latitude (row_cell_x_m / row_cell_y_m), so no user scale factor
+// is ever needed.
+
+#include <cmath>
+#include <cstddef>
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "sheetmill/core/map_frame.hpp"
+
+namespace sheetmill::terrain {
+
+struct Dem {
+  RasterGrid grid;                   // geotransform and CRS (WKT) of the cells
+  std::vector<float> z;              // row-major, grid.width * grid.height, metres; NaN = nodata
+  double cell_x_m = 0;               // ground size of a cell in metres (geographic grids: at the
+  double cell_y_m = 0;               // centre latitude)
+  std::vector<double> row_cell_x_m;  // per-row ground cell size, or empty when constant
+  std::vector<double> row_cell_y_m;  // (geographic grids: cells shrink toward the poles)
+
+  int width() const { return grid.width; }
+  int height() const { return grid.height; }
+  float at(int col, int row) const { return z[static_cast<std::size_t>(row) * grid.width + col]; }
+  double cell_x_m_at(int row) const { return row_cell_x_m.empty() ? cell_x_m : row_cell_x_m[row]; }
+  double cell_y_m_at(int row) const { return row_cell_y_m.empty() ? cell_y_m : row_cell_y_m[row]; }
+  // Number of cells holding data.
+  std::size_t valid_count() const;
+};
+
+struct DemReadOptions {
+  // GDAL resampling name for warping: "bilinear" (default), "cubic", "cubicspline", "near".
+  std::string resampling = "bilinear";
+  // The DEM's CRS when the file has none (any string GDAL's SetFromUserInput accepts, for
+  // instance "EPSG:32633"). Ignored when the file states its own CRS.
+  std::optional<std::string> assumed_crs;
+  // Elevation unit when the file does not say, or to override it: "m", "ft" (international
+  // foot) or "us-ft" (US survey foot).
+  std::optional<std::string> vertical_unit;
+};
+
+// Reads the part of the DEM under `target`, warped into exactly that grid with GDAL's warper
+// (in memory, both cores). Only the source window under the target is read, chunk by chunk,
+// so memory is bounded by the target grid, not by the source. Cells outside the data or in
+// the source's nodata are NaN; a log warning says when relief is partly or wholly missing.
+// Throws Error(input) for an unreadable file, a non-raster, or a DEM without CRS when none is
+// stated.
+Dem read_dem_window(const std::string& path, const RasterGrid& target,
+                    const DemReadOptions& options = {});
+
+// The DEM's own cell size in metres (geometric mean of the two sides, at the centre latitude
+// for geographic DEMs), for choosing a working resolution.
+double native_cell_m(const std::string& path, const DemReadOptions& options = {});
+
+}  // namespace sheetmill::terrain

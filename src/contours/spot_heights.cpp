@@ -1,0 +1,110 @@
+#include "sheetmill/contours/spot_heights.hpp"
+
+#include <fmt/format.h>
+
+#include <algorithm>
+#include <cmath>
+#include <numeric>
+
+namespace sheetmill::contours {
+
+namespace {
+
+// Topographic prominence by a descending sweep with union-find (the usual flooding
+// formulation): cells join the components of their higher neighbours; where two components
+// meet, the one with the lower peak ends, its prominence being its peak minus the col's
+// elevation. `sign` = -1 sweeps the inverted surface (depth of depressions).
+std::vector<SpotHeight> prominent_cells(const terrain::Dem& dem, double min_prominence,
+                                        double sign, SpotHeight::Kind kind) {
+  const int w = dem.width(), h = dem.height();
+  const std::size_t n = static_cast<std::size_t>(w) * h;
+  std::vector<std::uint32_t> order;
+  order.reserve(n);
+  for (std::size_t i = 0; i < n; ++i)
+    if (!std::isnan(dem.z[i])) order.push_back(static_cast<std::uint32_t>(i));
+  if (order.empty()) return {};
+  auto val = [&](std::uint32_t i) { return sign * static_cast<double>(dem.z[i]); };
+  std::stable_sort(order.begin(), order.end(),
+                   [&](std::uint32_t a, std::uint32_t b) { return val(a) > val(b); });
+  constexpr std::uint32_t none = 0xFFFFFFFFu;
+  std::vector<std::uint32_t> parent(n, none);  // none = not yet flooded
+  std::vector<std::uint32_t> peak(n, none);    // valid at roots
+  std::vector<double> prominence(n, -1);       // valid at peaks once they end
+  auto find = [&](std::uint32_t x) {
+    while (parent[x] != x) x = parent[x] = parent[parent[x]];
+    return x;
+  };
+  std::uint32_t roots[8];
+  for (std::uint32_t c : order) {
+    parent[c] = c;
+    peak[c] = c;
+    int cx = static_cast<int>(c % w), cy = static_cast<int>(c / w);
+    int nroots = 0;
+    for (int dy = -1; dy <= 1; ++dy) {
+      for (int dx = -1; dx <= 1; ++dx) {
+        int x = cx + dx, y = cy + dy;
+        if ((dx == 0 && dy == 0) || x < 0 || y < 0 || x >= w || y >= h) continue;
+        std::uint32_t nb = static_cast<std::uint32_t>(y) * w + x;
+        if (parent[nb] == none) continue;
+        std::uint32_t r = find(nb);
+        if (std::find(roots, roots + nroots, r) == roots + nroots) roots[nroots++] = r;
+      }
+    }
+    if (nroots == 0) continue;  // a new peak
+    // The surviving component is the one with the highest peak.
+    std::uint32_t best = roots[0];
+    for (int k = 1; k < nroots; ++k)
+      if (val(peak[roots[k]]) > val(peak[best])) best = roots[k];
+    for (int k = 0; k < nroots; ++k) {
+      if (roots[k] == best) continue;
+      prominence[peak[roots[k]]] = val(peak[roots[k]]) - val(c);
+      parent[roots[k]] = best;
+    }
+    parent[c] = best;
+  }
+  double lowest = val(order.back());
+  std::vector<SpotHeight> out;
+  for (std::uint32_t c : order) {
+    double p = prominence[c];
+    if (parent[c] == c && peak[c] == c && p < 0) p = val(c) - lowest;  // the highest peak
+    if (p < min_prominence || p < 0) continue;
+    int x = static_cast<int>(c % w), y = static_cast<int>(c / w);
+    if (x == 0 || y == 0 || x == w - 1 || y == h - 1) continue;
+    const double* gt = dem.grid.geotransform;
+    SpotHeight s;
+    s.ground = {gt[0] + (x + 0.5) * gt[1], gt[3] + (y + 0.5) * gt[5]};
+    s.elevation_m = dem.z[c];
+    s.kind = kind;
+    out.push_back(s);
+  }
+  return out;  // in sweep order: highest (or lowest) first
+}
+
+}  // namespace
+
+std::vector<SpotHeight> find_summits(const terrain::Dem& dem, double min_prominence_m) {
+  return prominent_cells(dem, min_prominence_m, 1, SpotHeight::Kind::summit);
+}
+
+std::vector<SpotHeight> find_depression_bottoms(const terrain::Dem& dem, double min_depth_m) {
+  return prominent_cells(dem, min_depth_m, -1, SpotHeight::Kind::depression);
+}
+
+std::string elevation_text(double elevation_m, double round_m, const std::string& text_template) {
+  if (!(round_m > 0)) round_m = 1;
+  double v = std::round(elevation_m / round_m) * round_m;
+  int decimals = 0;
+  while (decimals < 3 && std::abs(v * std::pow(10, decimals) - std::round(v * std::pow(10, decimals))) > 1e-6)
+    ++decimals;
+  std::string value = fmt::format("{:.{}f}", v, decimals);
+  if (value == "-0") value = "0";
+  if (text_template.empty()) return value;
+  std::string out = text_template;
+  for (const char* key : {"{elevation_m}", "{ele}"}) {
+    for (std::size_t at; (at = out.find(key)) != std::string::npos;)
+      out.replace(at, std::string(key).size(), value);
+  }
+  return out;
+}
+
+}  // namespace sheetmill::contours

@@ -1,0 +1,112 @@
+#include "sheetmill/draw/area.hpp"
+
+#include <cmath>
+
+#include "sheetmill/draw/line.hpp"
+#include "sheetmill/draw/point.hpp"
+
+namespace sheetmill::draw {
+
+namespace {
+
+void rings_path(cairo_t* cr, const std::vector<Polyline>& rings) {
+  cairo_new_path(cr);
+  for (const Polyline& r : rings) {
+    if (r.size() < 3) continue;
+    cairo_move_to(cr, r[0].x, r[0].y);
+    for (std::size_t i = 1; i < r.size(); ++i) cairo_line_to(cr, r[i].x, r[i].y);
+    cairo_close_path(cr);
+  }
+}
+
+Box bounds_of(const std::vector<Polyline>& rings) {
+  Box b;
+  for (const auto& r : rings)
+    for (const Point& p : r) b.add(p);
+  return b;
+}
+
+}  // namespace
+
+std::vector<std::pair<Point, Point>> hatch_segments(const Box& box, const style::Hatch& hatch) {
+  std::vector<std::pair<Point, Point>> out;
+  if (box.empty() || hatch.spacing_mm <= 0) return out;
+  // Direction counter-clockwise from the page x axis as seen on a y-down page.
+  const double a = hatch.angle_deg * kDegToRad;
+  const Point u{std::cos(a), -std::sin(a)};
+  const Point n{std::sin(a), std::cos(a)};  // unit normal to u
+  const Point corners[4] = {{box.min_x, box.min_y},
+                            {box.max_x, box.min_y},
+                            {box.max_x, box.max_y},
+                            {box.min_x, box.max_y}};
+  double n0 = INFINITY, n1 = -INFINITY, u0 = INFINITY, u1 = -INFINITY;
+  for (const Point& c : corners) {
+    n0 = std::min(n0, dot(c, n));
+    n1 = std::max(n1, dot(c, n));
+    u0 = std::min(u0, dot(c, u));
+    u1 = std::max(u1, dot(c, u));
+  }
+  for (long k = static_cast<long>(std::floor(n0 / hatch.spacing_mm));
+       k <= static_cast<long>(std::ceil(n1 / hatch.spacing_mm)); ++k) {
+    const Point base = n * (k * hatch.spacing_mm);
+    out.push_back({base + u * u0, base + u * u1});
+  }
+  return out;
+}
+
+std::vector<Point> pattern_points(const Box& box, const style::PatternFill& p) {
+  std::vector<Point> out;
+  if (box.empty() || p.spacing_x_mm <= 0 || p.spacing_y_mm <= 0) return out;
+  const long j0 = static_cast<long>(std::floor(box.min_y / p.spacing_y_mm));
+  const long j1 = static_cast<long>(std::ceil(box.max_y / p.spacing_y_mm));
+  for (long j = j0; j <= j1; ++j) {
+    const double shift = p.staggered && (j % 2 != 0) ? p.spacing_x_mm / 2 : 0;
+    const long i0 = static_cast<long>(std::floor((box.min_x - shift) / p.spacing_x_mm));
+    const long i1 = static_cast<long>(std::ceil((box.max_x - shift) / p.spacing_x_mm));
+    for (long i = i0; i <= i1; ++i) out.push_back({i * p.spacing_x_mm + shift, j * p.spacing_y_mm});
+  }
+  return out;
+}
+
+void draw_area(cairo_t* cr, const std::vector<Polyline>& rings, const style::AreaSymbol& symbol) {
+  if (rings.empty()) return;
+  cairo_save(cr);
+  cairo_set_fill_rule(cr, CAIRO_FILL_RULE_EVEN_ODD);
+  if (symbol.fill) {
+    rings_path(cr, rings);
+    const Colour& c = *symbol.fill;
+    cairo_set_source_rgba(cr, c.r, c.g, c.b, c.a);
+    cairo_fill(cr);
+  }
+  if (!symbol.hatches.empty() || symbol.pattern) {
+    cairo_save(cr);
+    rings_path(cr, rings);
+    cairo_clip(cr);
+    Box box = bounds_of(rings);
+    for (const style::Hatch& h : symbol.hatches) {
+      cairo_new_path(cr);
+      for (const auto& [a, b] : hatch_segments(box.expanded(h.stroke.width_mm), h)) {
+        cairo_move_to(cr, a.x, a.y);
+        cairo_line_to(cr, b.x, b.y);
+      }
+      style::Stroke st = h.stroke;
+      apply_stroke(cr, st);
+      cairo_stroke(cr);
+    }
+    if (symbol.pattern) {
+      double r = point_symbol_radius_mm(symbol.pattern->symbol);
+      for (const Point& p : pattern_points(box.expanded(r), *symbol.pattern))
+        draw_point_symbol(cr, p, symbol.pattern->symbol, symbol.pattern->symbol.rotation_deg);
+    }
+    cairo_restore(cr);
+  }
+  if (symbol.outline && symbol.outline->width_mm > 0) {
+    rings_path(cr, rings);
+    apply_stroke(cr, *symbol.outline);
+    cairo_stroke(cr);
+  }
+  cairo_new_path(cr);
+  cairo_restore(cr);
+}
+
+}  // namespace sheetmill::draw

@@ -1,0 +1,352 @@
+#include "sheetmill/exhibit/overlays.hpp"
+
+#include <ogr_geometry.h>
+
+#include <algorithm>
+#include <cmath>
+#include <memory>
+
+#include "exhibit/text_helpers.hpp"
+#include "sheetmill/core/log.hpp"
+#include "sheetmill/core/units.hpp"
+#include "sheetmill/features/clip.hpp"
+#include "sheetmill/features/reader.hpp"
+#include "sheetmill/text/collision_index.hpp"
+
+namespace sheetmill::exhibit {
+
+namespace {
+
+project::Source source_of(const LayerRef& ref, const std::string& name) {
+  project::Source s;
+  s.name = name;
+  s.path = ref.path;
+  s.layer = ref.layer;
+  s.where = ref.where;
+  s.required = true;
+  return s;
+}
+
+features::ReadRequest request_for(const MapFrame& frame, std::vector<std::string> fields = {}) {
+  features::ReadRequest r;
+  r.sheet_crs_wkt = frame.crs_wkt;
+  // A little beyond the frame so outlines do not end at the neatline with a cap.
+  r.clip_ground = frame.ground.expanded(0.01 * std::max(frame.ground.width(), frame.ground.height()));
+  r.fields = std::move(fields);
+  return r;
+}
+
+Polyline to_page(const MapFrame& frame, const Polyline& line) {
+  Polyline out;
+  out.reserve(line.size());
+  for (const Point& p : line) out.push_back(frame.to_page(p));
+  return out;
+}
+
+std::vector<PageArea> read_areas(const LayerRef& ref, const std::string& name,
+                                 const MapFrame& frame) {
+  std::vector<PageArea> out;
+  features::read_features(source_of(ref, name), request_for(frame), [&](const features::Feature& f) {
+    for (const features::Polygon& poly : f.polygons) {
+      PageArea a;
+      a.rings.push_back(to_page(frame, poly.outer));
+      for (const Polyline& h : poly.holes) a.rings.push_back(to_page(frame, h));
+      out.push_back(std::move(a));
+    }
+  });
+  return out;
+}
+
+std::vector<Polyline> read_lines(const LayerRef& ref, const std::string& name,
+                                 const MapFrame& frame) {
+  std::vector<Polyline> out;
+  features::read_features(source_of(ref, name), request_for(frame), [&](const features::Feature& f) {
+    for (const Polyline& l : f.lines) out.push_back(to_page(frame, l));
+    for (const features::Polygon& poly : f.polygons) {  // an area's outline as a line
+      Polyline ring = to_page(frame, poly.outer);
+      if (!ring.empty()) ring.push_back(ring.front());
+      out.push_back(std::move(ring));
+    }
+  });
+  return out;
+}
+
+std::unique_ptr<OGRPolygon> ogr_polygon(const PageArea& a) {
+  auto poly = std::make_unique<OGRPolygon>();
+  for (const Polyline& ring : a.rings) {
+    auto r = std::make_unique<OGRLinearRing>();
+    for (const Point& p : ring) r->addPoint(p.x, p.y);
+    if (!ring.empty()) r->addPoint(ring.front().x, ring.front().y);
+    poly->addRingDirectly(r.release());
+  }
+  return poly;
+}
+
+void rings_of(const OGRGeometry* g, std::vector<PageArea>& out) {
+  if (!g) return;
+  const auto type = wkbFlatten(g->getGeometryType());
+  if (type == wkbPolygon) {
+    const auto* poly = g->toPolygon();
+    PageArea a;
+    for (const OGRLinearRing* r : *poly) {
+      Polyline ring;
+      for (int i = 0; i + 1 < r->getNumPoints(); ++i) ring.push_back({r->getX(i), r->getY(i)});
+      a.rings.push_back(std::move(ring));
+    }
+    out.push_back(std::move(a));
+  } else if (type == wkbMultiPolygon || type == wkbGeometryCollection) {
+    for (const OGRGeometry* part : *g->toGeometryCollection()) rings_of(part, out);
+  }
+}
+
+// The frame minus the union of the focus areas, by GEOS through OGR. Without GEOS the veil is
+// the frame with the areas' rings cut out by the even-odd rule (exact unless areas overlap).
+std::vector<PageArea> veil_of(const MapFrame& frame, const std::vector<std::vector<PageArea>>& areas,
+                              const ExhibitProject& project) {
+  const Box b = frame.page_box_mm();
+  PageArea frame_area{{{{b.min_x, b.min_y}, {b.max_x, b.min_y}, {b.max_x, b.max_y}, {b.min_x, b.max_y}}}};
+  std::vector<PageArea> out;
+  OGRMultiPolygon focus;
+  for (std::size_t i = 0; i < areas.size(); ++i) {
+    if (!project.areas[i].focus) continue;
+    for (const PageArea& a : areas[i]) focus.addGeometryDirectly(ogr_polygon(a).release());
+  }
+  if (focus.IsEmpty()) return {frame_area};
+  if (OGRGeometryFactory::haveGEOS()) {
+    std::unique_ptr<OGRGeometry> fixed(focus.MakeValid());
+    std::unique_ptr<OGRGeometry> all(fixed ? fixed->UnionCascaded() : nullptr);
+    if (!all && fixed) all.reset(fixed->Buffer(0));
+    auto frame_poly = ogr_polygon(frame_area);
+    std::unique_ptr<OGRGeometry> veil(all ? frame_poly->Difference(all.get()) : nullptr);
+    if (veil) {
+      rings_of(veil.get(), out);
+      return out;
+    }
+  }
+  PageArea even_odd = frame_area;
+  for (const auto& list : areas) {
+    for (const PageArea& a : list) {
+      for (const Polyline& r : a.rings) even_odd.rings.push_back(r);
+    }
+  }
+  return {even_odd};
+}
+
+}  // namespace
+
+OverlayData read_overlays(const ExhibitProject& project, const MapFrame& frame) {
+  OverlayData d;
+  if (project.context.water_areas) d.water_areas = read_areas(*project.context.water_areas, "water_areas", frame);
+  if (project.context.water_lines) d.water_lines = read_lines(*project.context.water_lines, "water_lines", frame);
+  if (project.context.roads) d.roads = read_lines(*project.context.roads, "roads", frame);
+  for (std::size_t i = 0; i < project.areas.size(); ++i) {
+    const AreaOverlay& area = project.areas[i];
+    if (!area.ring.empty()) {
+      PageArea a;
+      Polyline clipped = features::clip_ring(area.ring, request_for(frame).clip_ground);
+      if (clipped.size() >= 3) a.rings.push_back(to_page(frame, clipped));
+      d.areas.push_back({});
+      if (!a.rings.empty()) d.areas.back().push_back(std::move(a));
+    } else {
+      d.areas.push_back(read_areas(area.data, "areas[" + std::to_string(i) + "]", frame));
+    }
+    if (d.areas.back().empty()) {
+      log::warn("{}: area \"{}\" has no polygon inside the exhibit's frame",
+                area.data.path.empty() ? project.file.string() : area.data.path, area.label);
+    }
+  }
+  if (project.dim_outside > 0) d.veil = veil_of(frame, d.areas, project);
+  if (project.places) {
+    const PlaceCallouts& pc = *project.places;
+    features::read_features(source_of(pc.data, "places"), request_for(frame, {pc.name_field}),
+                            [&](const features::Feature& f) {
+                              const std::string* name = f.value(0);
+                              if (!name || f.points.empty()) return;
+                              if (!pc.only.empty() &&
+                                  std::find(pc.only.begin(), pc.only.end(), *name) == pc.only.end()) {
+                                return;
+                              }
+                              const Point at = frame.to_page(f.points.front());
+                              if (frame.page_box_mm().contains(at)) d.places.push_back({*name, at});
+                            });
+    if (!pc.only.empty() && d.places.size() < pc.only.size()) {
+      log::warn("{}: {} of the {} places to call out were not found inside the frame",
+                pc.data.path, pc.only.size() - d.places.size(), pc.only.size());
+    }
+  }
+  return d;
+}
+
+namespace {
+
+void path_rings(cairo_t* cr, const std::vector<Polyline>& rings) {
+  for (const Polyline& r : rings) {
+    for (std::size_t i = 0; i < r.size(); ++i) {
+      if (i == 0) {
+        cairo_move_to(cr, r[i].x, r[i].y);
+      } else {
+        cairo_line_to(cr, r[i].x, r[i].y);
+      }
+    }
+    cairo_close_path(cr);
+  }
+}
+
+void path_lines(cairo_t* cr, const std::vector<Polyline>& lines) {
+  for (const Polyline& l : lines) {
+    for (std::size_t i = 0; i < l.size(); ++i) {
+      if (i == 0) {
+        cairo_move_to(cr, l[i].x, l[i].y);
+      } else {
+        cairo_line_to(cr, l[i].x, l[i].y);
+      }
+    }
+  }
+}
+
+void set_rgba(cairo_t* cr, const Colour& c, double alpha = 1) {
+  cairo_set_source_rgba(cr, c.r, c.g, c.b, c.a * alpha);
+}
+
+CalloutReport draw_callouts(cairo_t* cr, const std::vector<Place>& places, const Box& map,
+                            const TypeScale& type, text::FontCache& fonts) {
+  CalloutReport rep;
+  text::CollisionIndex index(map.expanded(1), 20 * type.factor);
+  index.set_bounds(map);
+  const double f = type.factor;
+  const double dot_r = 1.6 * f;
+  for (const Place& p : places) {
+    index.insert(text::box_quad(Box::of(p.at_mm.x - dot_r, p.at_mm.y - dot_r, p.at_mm.x + dot_r,
+                                        p.at_mm.y + dot_r)));
+  }
+  const double pad = 0.35 * type.body_pt * kMmPerPt;
+  for (const Place& p : places) {
+    text::ShapedText t = text::shape(fonts, detail::bold(), type.body_pt, p.name);
+    const double bw = t.width_mm + 2 * pad, bh = t.height_mm() + 2 * pad;
+    const double d = 9 * f;  // leader length
+    // Eight directions, preferring up-right then the other diagonals (common practice: names
+    // to the upper right of their point).
+    static const double dirs[8][2] = {{1, -1}, {-1, -1}, {1, 1}, {-1, 1},
+                                      {1, 0},  {-1, 0},  {0, -1}, {0, 1}};
+    Box chosen;
+    bool free = false;
+    for (const auto& dir : dirs) {
+      const double ux = dir[0] / std::hypot(dir[0], dir[1]), uy = dir[1] / std::hypot(dir[0], dir[1]);
+      const Point end{p.at_mm.x + ux * d, p.at_mm.y + uy * d};
+      const double x0 = dir[0] > 0 ? end.x : dir[0] < 0 ? end.x - bw : end.x - bw / 2;
+      const double y0 = dir[1] > 0 ? end.y : dir[1] < 0 ? end.y - bh : end.y - bh / 2;
+      Box b = Box::of(x0, y0, x0 + bw, y0 + bh);
+      if (chosen.empty()) chosen = b;
+      if (index.is_free(text::box_quad(b))) {
+        chosen = b;
+        free = true;
+        break;
+      }
+    }
+    (free ? rep.placed_free : rep.placed_forced)++;
+    index.insert(text::box_quad(chosen));
+    // Leader from the dot to the nearest point of the box.
+    const Point near{std::clamp(p.at_mm.x, chosen.min_x, chosen.max_x),
+                     std::clamp(p.at_mm.y, chosen.min_y, chosen.max_y)};
+    cairo_set_line_cap(cr, CAIRO_LINE_CAP_ROUND);
+    cairo_set_source_rgb(cr, 1, 1, 1);
+    cairo_set_line_width(cr, 1.4 * f);
+    cairo_move_to(cr, p.at_mm.x, p.at_mm.y);
+    cairo_line_to(cr, near.x, near.y);
+    cairo_stroke(cr);
+    cairo_set_source_rgb(cr, 0.1, 0.1, 0.1);
+    cairo_set_line_width(cr, 0.5 * f);
+    cairo_move_to(cr, p.at_mm.x, p.at_mm.y);
+    cairo_line_to(cr, near.x, near.y);
+    cairo_stroke(cr);
+    cairo_arc(cr, p.at_mm.x, p.at_mm.y, dot_r, 0, 2 * kPi);
+    cairo_set_source_rgb(cr, 1, 1, 1);
+    cairo_fill_preserve(cr);
+    cairo_set_source_rgb(cr, 0.1, 0.1, 0.1);
+    cairo_set_line_width(cr, 0.6 * f);
+    cairo_stroke(cr);
+    cairo_rectangle(cr, chosen.min_x, chosen.min_y, bw, bh);
+    cairo_set_source_rgba(cr, 1, 1, 1, 0.92);
+    cairo_fill_preserve(cr);
+    cairo_set_source_rgb(cr, 0.1, 0.1, 0.1);
+    cairo_set_line_width(cr, 0.35 * f);
+    cairo_stroke(cr);
+    text::TextPaint paint;
+    paint.colour = {0.1, 0.1, 0.1, 1};
+    text::draw_text(cr, t, {chosen.min_x + pad, chosen.min_y + pad + t.ascent_mm}, 0, paint);
+  }
+  if (rep.placed_forced > 0) {
+    log::warn("{} callouts could not avoid each other; check the exhibit for overlaps",
+              rep.placed_forced);
+  }
+  return rep;
+}
+
+}  // namespace
+
+CalloutReport draw_overlays(cairo_t* cr, const ExhibitProject& project, const MapFrame& frame,
+                            const OverlayData& data, const TypeScale& type,
+                            text::FontCache& fonts) {
+  const double f = type.factor;
+  const Box map = frame.page_box_mm();
+  cairo_save(cr);
+  cairo_rectangle(cr, map.min_x, map.min_y, map.width(), map.height());
+  cairo_clip(cr);
+  cairo_set_line_join(cr, CAIRO_LINE_JOIN_ROUND);
+  const Colour water{0.16, 0.45, 0.70, 1};
+  for (const PageArea& a : data.water_areas) {
+    path_rings(cr, a.rings);
+    cairo_set_fill_rule(cr, CAIRO_FILL_RULE_EVEN_ODD);
+    if (project.relief.water_shade) {
+      set_rgba(cr, *project.relief.water_shade, 0.55);  // soft: the relief shows through
+      cairo_fill_preserve(cr);
+    }
+    set_rgba(cr, water);
+    cairo_set_line_width(cr, 0.45 * f);
+    cairo_stroke(cr);
+  }
+  if (!data.water_lines.empty()) {
+    path_lines(cr, data.water_lines);
+    set_rgba(cr, water);
+    cairo_set_line_width(cr, 0.8 * f);
+    cairo_set_line_cap(cr, CAIRO_LINE_CAP_ROUND);
+    cairo_stroke(cr);
+  }
+  if (!data.roads.empty()) {
+    path_lines(cr, data.roads);
+    cairo_set_source_rgba(cr, 1, 1, 1, 0.9);
+    cairo_set_line_width(cr, 1.8 * f);
+    cairo_set_line_cap(cr, CAIRO_LINE_CAP_ROUND);
+    cairo_stroke_preserve(cr);
+    cairo_set_source_rgb(cr, 0.33, 0.31, 0.30);
+    cairo_set_line_width(cr, 0.9 * f);
+    cairo_stroke(cr);
+  }
+  if (project.dim_outside > 0) {
+    cairo_set_fill_rule(cr, CAIRO_FILL_RULE_EVEN_ODD);
+    for (const PageArea& a : data.veil) path_rings(cr, a.rings);
+    cairo_set_source_rgba(cr, 1, 1, 1, project.dim_outside);
+    cairo_fill(cr);
+  }
+  for (std::size_t i = 0; i < data.areas.size(); ++i) {
+    const AreaOverlay& style = project.areas[i];
+    cairo_new_path(cr);
+    for (const PageArea& a : data.areas[i]) path_rings(cr, a.rings);
+    cairo_set_dash(cr, nullptr, 0, 0);
+    cairo_set_source_rgba(cr, 1, 1, 1, 0.85);  // casing: the outline holds on dark relief
+    cairo_set_line_width(cr, style.width_mm + 1.2 * f);
+    cairo_stroke_preserve(cr);
+    if (!style.dash_mm.empty()) {
+      cairo_set_dash(cr, style.dash_mm.data(), static_cast<int>(style.dash_mm.size()), 0);
+    }
+    set_rgba(cr, style.colour);
+    cairo_set_line_width(cr, style.width_mm);
+    cairo_stroke(cr);
+    cairo_set_dash(cr, nullptr, 0, 0);
+  }
+  CalloutReport rep = draw_callouts(cr, data.places, map, type, fonts);
+  cairo_restore(cr);
+  return rep;
+}
+
+}  // namespace sheetmill::exhibit

@@ -1,0 +1,210 @@
+#include "sheetmill/exhibit/render_exhibit.hpp"
+
+#include <cairo-pdf.h>
+
+#include <algorithm>
+#include <chrono>
+#include <cmath>
+#include <system_error>
+
+#include "sheetmill/core/atomic_file.hpp"
+#include "sheetmill/core/error.hpp"
+#include "sheetmill/core/handles.hpp"
+#include "sheetmill/core/log.hpp"
+#include "sheetmill/core/units.hpp"
+#include "sheetmill/exhibit/inset_map.hpp"
+#include "sheetmill/exhibit/overlays.hpp"
+#include "sheetmill/exhibit/pdf_relief.hpp"
+#include "sheetmill/exhibit/png_strip_writer.hpp"
+#include "sheetmill/exhibit/ramps.hpp"
+#include "sheetmill/exhibit/relief_strips.hpp"
+
+namespace sheetmill::exhibit {
+
+ExhibitFormat format_for_path(const std::filesystem::path& output) {
+  std::string ext = output.extension().string();
+  std::transform(ext.begin(), ext.end(), ext.begin(), [](unsigned char c) { return std::tolower(c); });
+  return ext == ".png" ? ExhibitFormat::png : ExhibitFormat::pdf;
+}
+
+namespace {
+
+terrain::TintRamp ramp_for(const ExhibitProject& project, const MapFrame& frame) {
+  if (project.relief.ramp) return *project.relief.ramp;
+  auto range = project.relief.range_m ? *project.relief.range_m : elevation_range(project, frame);
+  return fit_ramp(shipped_ramp(project.relief.ramp_name), range.first, range.second);
+}
+
+// Everything but the relief, in page millimetres, recorded once and replayed onto each target.
+struct Composition {
+  CairoSurfacePtr recording;
+  ColourBarReport colour_bar;
+  CalloutReport callouts;
+};
+
+Composition compose(const ExhibitProject& project, const ExhibitLayout& layout,
+                    const terrain::TintRamp& ramp) {
+  Composition c;
+  cairo_rectangle_t extents{0, 0, layout.page_w_mm, layout.page_h_mm};
+  c.recording.reset(cairo_recording_surface_create(CAIRO_CONTENT_COLOR_ALPHA, &extents));
+  CairoPtr cr(cairo_create(c.recording.get()));
+  check_cairo(cairo_status(cr.get()), "exhibit composition");
+  text::FontCache fonts;
+  OverlayData data = read_overlays(project, layout.frame);
+  c.callouts = draw_overlays(cr.get(), project, layout.frame, data, layout.type, fonts);
+  const Box& m = layout.map_box_mm;
+  cairo_set_source_rgb(cr.get(), 0.1, 0.1, 0.1);
+  cairo_set_line_width(cr.get(), 0.6 * layout.type.factor);
+  cairo_rectangle(cr.get(), m.min_x, m.min_y, m.width(), m.height());
+  cairo_stroke(cr.get());
+  draw_title(cr.get(), layout, project, fonts);
+  c.colour_bar = draw_colour_bar(cr.get(), layout.colour_bar_box_mm, ramp,
+                                 project.relief.exaggeration, layout.type, fonts);
+  draw_scale_bar(cr.get(), layout.scale_box_mm, layout.frame, layout.type, fonts);
+  draw_north_arrow(cr.get(), layout.scale_box_mm, layout.frame, layout.type, fonts);
+  draw_inset_map(cr.get(), layout.inset_box_mm, project, layout.frame, ramp, layout.type, fonts);
+  draw_notes(cr.get(), layout.notes_box_mm, project, layout.type, fonts);
+  check_cairo(cairo_status(cr.get()), "drawing the exhibit");
+  return c;
+}
+
+void write_pdf(const ExhibitProject& project, const ExhibitLayout& layout, const ReliefPlan& plan,
+               const Composition& comp, const std::filesystem::path& output) {
+  AtomicOutput out(output);
+  const std::filesystem::path cairo_file = sibling_temp_path(output, "cairo");
+  struct Remove {
+    std::filesystem::path p;
+    ~Remove() {
+      std::error_code ec;
+      std::filesystem::remove(p, ec);
+    }
+  } remove_cairo_file{cairo_file};
+  {
+    CairoSurfacePtr surface(cairo_pdf_surface_create(cairo_file.c_str(), layout.page_w_mm * kPtPerMm,
+                                                     layout.page_h_mm * kPtPerMm));
+    check_cairo(cairo_surface_status(surface.get()), "creating the PDF");
+    cairo_pdf_surface_set_metadata(surface.get(), CAIRO_PDF_METADATA_TITLE, project.title.c_str());
+    cairo_pdf_surface_set_metadata(surface.get(), CAIRO_PDF_METADATA_SUBJECT,
+                                   project.subtitle.c_str());
+    cairo_pdf_surface_set_metadata(surface.get(), CAIRO_PDF_METADATA_CREATOR, "sheetmill exhibit");
+    CairoPtr cr(cairo_create(surface.get()));
+    cairo_scale(cr.get(), kPtPerMm, kPtPerMm);
+    paint_relief_placeholders(cr.get(), plan, layout.map_box_mm);
+    cairo_set_source_surface(cr.get(), comp.recording.get(), 0, 0);
+    cairo_paint(cr.get());
+    check_cairo(cairo_status(cr.get()), "writing the PDF");
+    cr.reset();
+    cairo_surface_finish(surface.get());
+    check_cairo(cairo_surface_status(surface.get()), "finishing the PDF");
+  }
+  StreamedReliefReport rep = stream_relief_into_pdf(cairo_file, out.temp_path(), plan,
+                                                    project.relief.compression,
+                                                    project.relief.jpeg_quality);
+  log::debug("relief: {} strips streamed into the PDF, {} renders", rep.strips_replaced,
+             rep.strip_renders);
+  out.commit();
+}
+
+void paint_argb(cairo_t* cr, const terrain::ReliefImage& img, Point origin_mm, double px_mm) {
+  CairoSurfacePtr s(cairo_image_surface_create_for_data(
+      reinterpret_cast<unsigned char*>(const_cast<std::uint32_t*>(img.argb.data())),
+      CAIRO_FORMAT_ARGB32, img.width, img.height, img.width * 4));
+  check_cairo(cairo_surface_status(s.get()), "relief band");
+  cairo_save(cr);
+  cairo_translate(cr, origin_mm.x, origin_mm.y);
+  cairo_scale(cr, px_mm, px_mm);
+  cairo_set_source_surface(cr, s.get(), 0, 0);
+  cairo_pattern_set_filter(cairo_get_source(cr), CAIRO_FILTER_NEAREST);
+  cairo_paint(cr);
+  cairo_restore(cr);
+  cairo_surface_finish(s.get());
+}
+
+void write_png(const ExhibitLayout& layout, const ReliefPlan& plan, const Composition& comp,
+               const std::filesystem::path& output, double dpi, long max_pixels) {
+  AtomicOutput out(output);
+  const double px_per_mm = dpi / kMmPerInch;
+  const int w = static_cast<int>(std::lround(layout.page_w_mm * px_per_mm));
+  const int h = static_cast<int>(std::lround(layout.page_h_mm * px_per_mm));
+  const int band_rows = static_cast<int>(std::clamp<long>(max_pixels / std::max(1, w), 16, h));
+  const Box& map = layout.map_box_mm;
+  {
+    PngStripWriter png(out.temp_path(), w, h, dpi);
+    std::vector<std::uint8_t> row(static_cast<std::size_t>(w) * 3);
+    for (int b0 = 0; b0 < h; b0 += band_rows) {
+      const int rows = std::min(band_rows, h - b0);
+      CairoSurfacePtr band(cairo_image_surface_create(CAIRO_FORMAT_RGB24, w, rows));
+      check_cairo(cairo_surface_status(band.get()), "PNG band");
+      {
+        CairoPtr cr(cairo_create(band.get()));
+        cairo_set_source_rgb(cr.get(), 1, 1, 1);
+        cairo_paint(cr.get());
+        cairo_scale(cr.get(), px_per_mm, px_per_mm);
+        cairo_translate(cr.get(), 0, -b0 / px_per_mm);
+        // The relief rows under this band only, read and shaded for it alone.
+        const double y0 = b0 / px_per_mm, y1 = (b0 + rows) / px_per_mm;
+        const int r0 = std::max(0, static_cast<int>(std::floor((y0 - plan.origin_mm.y) / plan.px_mm)));
+        const int r1 = std::min(plan.grid.height,
+                                static_cast<int>(std::ceil((y1 - plan.origin_mm.y) / plan.px_mm)));
+        if (r1 > r0 && y1 > map.min_y && y0 < map.max_y) {
+          RasterGrid g = terrain::sub_grid(plan.grid, 0, r0, plan.grid.width, r1 - r0);
+          terrain::ReliefImage img =
+              terrain::render_relief_window(plan.dem_path, g, plan.read_options, plan.params);
+          cairo_save(cr.get());
+          cairo_rectangle(cr.get(), map.min_x, map.min_y, map.width(), map.height());
+          cairo_clip(cr.get());
+          paint_argb(cr.get(), img, {plan.origin_mm.x, plan.origin_mm.y + r0 * plan.px_mm},
+                     plan.px_mm);
+          cairo_restore(cr.get());
+        }
+        cairo_set_source_surface(cr.get(), comp.recording.get(), 0, 0);
+        cairo_paint(cr.get());
+        check_cairo(cairo_status(cr.get()), "drawing the PNG band");
+      }
+      cairo_surface_flush(band.get());
+      const unsigned char* data = cairo_image_surface_get_data(band.get());
+      const int stride = cairo_image_surface_get_stride(band.get());
+      for (int r = 0; r < rows; ++r) {
+        const auto* px = reinterpret_cast<const std::uint32_t*>(data + r * stride);
+        for (int x = 0; x < w; ++x) {
+          row[3 * x] = static_cast<std::uint8_t>((px[x] >> 16) & 255);
+          row[3 * x + 1] = static_cast<std::uint8_t>((px[x] >> 8) & 255);
+          row[3 * x + 2] = static_cast<std::uint8_t>(px[x] & 255);
+        }
+        png.write_row(row.data());
+      }
+    }
+    png.finish();
+  }
+  out.commit();
+}
+
+}  // namespace
+
+ExhibitReport render_exhibit(const ExhibitProject& project, const std::filesystem::path& output,
+                             const ExhibitOptions& options) {
+  const auto start = std::chrono::steady_clock::now();
+  ExhibitReport rep;
+  rep.output = output;
+  rep.layout = compute_exhibit_layout(project);
+  rep.ramp = ramp_for(project, rep.layout.frame);
+  const double dpi = options.format == ExhibitFormat::png
+                         ? options.png_dpi
+                         : options.relief_dpi.value_or(project.relief.dpi);
+  ReliefPlan plan = plan_relief(project, rep.layout.frame, rep.ramp, dpi, options.max_strip_pixels);
+  rep.relief_strips = static_cast<int>(plan.strips.size());
+  rep.relief_width_px = plan.grid.width;
+  rep.relief_height_px = plan.grid.height;
+  Composition comp = compose(project, rep.layout, rep.ramp);
+  rep.colour_bar = comp.colour_bar;
+  rep.callouts_forced = comp.callouts.placed_forced;
+  if (options.format == ExhibitFormat::pdf) {
+    write_pdf(project, rep.layout, plan, comp, output);
+  } else {
+    write_png(rep.layout, plan, comp, output, options.png_dpi, options.max_strip_pixels);
+  }
+  rep.seconds = std::chrono::duration<double>(std::chrono::steady_clock::now() - start).count();
+  return rep;
+}
+
+}  // namespace sheetmill::exhibit

@@ -1,0 +1,75 @@
+#include "render/contour_layer.hpp"
+
+#include <algorithm>
+
+#include "render/relief_layer.hpp"
+#include "sheetmill/contours/contour_labels.hpp"
+#include "sheetmill/contours/generate.hpp"
+#include "sheetmill/contours/spot_heights.hpp"
+#include "sheetmill/core/log.hpp"
+
+namespace sheetmill::render {
+
+namespace {
+
+// Contours come from a grid at about the DEM's own resolution: finer adds nothing but vertices,
+// and a line 0.1 mm apart on paper is the finest a pen can separate.
+RasterGrid contour_grid(const project::Project& project, const MapFrame& frame) {
+  double native = terrain::native_cell_m(project.elevation.dem, dem_options(project));
+  double finest = 0.1 * frame.metres_per_mm();
+  double cell = std::max(native, finest);
+  double dpi = kMmPerInch / (cell * frame.mm_per_metre());
+  return grid_for_frame(frame, dpi, 3);
+}
+
+}  // namespace
+
+SheetContours build_contours(const project::Project& project, const style::Style& style,
+                             const MapFrame& frame,
+                             const std::vector<std::vector<Polyline>>& water,
+                             text::FontCache& fonts) {
+  SheetContours out;
+  const style::ContourStyle& cs = style.contours;
+  contours::ContourParams params;
+  params.index_every = cs.index_every;
+  params.base_m = project.contours.base_m;
+  params.scale_denominator = frame.scale_denominator;
+  params.smoothing_mm = cs.smoothing_mm;
+  params.min_loop_mm = cs.min_loop_mm;
+  params.supplementary = cs.supplementary.has_value();
+  params.supplementary_max_slope_deg = cs.supplementary_max_slope_deg;
+
+  bool have_dem = !project.elevation.dem.empty();
+  if (have_dem) {
+    out.dem = terrain::read_dem_window(project.elevation.dem, contour_grid(project, frame),
+                                       dem_options(project));
+  }
+  if (project.contours.interval_m) {
+    params.interval_m = *project.contours.interval_m;
+  } else if (cs.interval_m) {
+    params.interval_m = *cs.interval_m;
+  } else if (have_dem && out.dem.valid_count() > 0) {
+    auto [lo, hi] = contours::elevation_range(out.dem);
+    params.interval_m = contours::propose_interval_m(frame.scale_denominator, hi - lo);
+    log::info("contour interval {} m proposed from the scale and {:.0f} m of relief",
+              params.interval_m, hi - lo);
+  } else {
+    return out;
+  }
+  out.interval_m = params.interval_m;
+
+  if (have_dem && out.dem.valid_count() > 0) {
+    out.lines = contours::generate(out.dem, params);
+  } else {
+    return out;
+  }
+  (void)water;
+  out.labels = contours::label_candidates(out.lines, out.dem, frame, cs, fonts);
+  out.spots = contours::find_summits(out.dem, cs.spot_min_prominence_m);
+  for (auto& c : contours::spot_label_candidates(out.spots, frame, cs, fonts)) {
+    out.labels.push_back(std::move(c));
+  }
+  return out;
+}
+
+}  // namespace sheetmill::render

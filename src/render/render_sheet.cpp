@@ -1,0 +1,153 @@
+#include <chrono>
+
+#include "render/contour_layer.hpp"
+#include "render/relief_layer.hpp"
+#include "sheetmill/contours/draw_contours.hpp"
+#include "sheetmill/core/atomic_file.hpp"
+#include "sheetmill/core/error.hpp"
+#include "sheetmill/core/gdal_env.hpp"
+#include "sheetmill/core/log.hpp"
+#include "sheetmill/labels/candidate.hpp"
+#include "sheetmill/pdf/layered_canvas.hpp"
+#include "sheetmill/render/feature_layers.hpp"
+#include "sheetmill/render/render.hpp"
+#include "sheetmill/sheet/collar.hpp"
+#include "sheetmill/sheet/grid.hpp"
+#include "sheetmill/sheet/layout.hpp"
+#include "sheetmill/sheet/sheet_info.hpp"
+#include "sheetmill/text/collision_index.hpp"
+
+namespace sheetmill::render {
+
+namespace {
+
+using Clock = std::chrono::steady_clock;
+
+double seconds_since(Clock::time_point t0) {
+  return std::chrono::duration<double>(Clock::now() - t0).count();
+}
+
+pdf::GeoRegistration registration(const MapFrame& frame) {
+  pdf::GeoRegistration geo;
+  geo.frame_page_mm = frame.page_box_mm();
+  std::vector<Point> ring = frame.neatline;
+  if (ring.size() < 3) {
+    const Box& g = frame.ground;
+    ring = {{g.min_x, g.min_y}, {g.max_x, g.min_y}, {g.max_x, g.max_y}, {g.min_x, g.max_y}};
+  }
+  for (const Point& p : ring) {
+    geo.neatline_ground.push_back(p);
+    geo.neatline_page_mm.push_back(frame.to_page(p));
+  }
+  geo.crs_wkt = frame.crs_wkt;
+  geo.epsg = frame.epsg;
+  return geo;
+}
+
+}  // namespace
+
+RenderReport render_sheet(const project::Project& project, const style::Style& style,
+                          const std::filesystem::path& output, const RenderOptions& options) {
+  gdal_init();
+  const auto t_start = Clock::now();
+  RenderReport report;
+  report.output = output;
+  log::WarningCollector warnings;
+  text::FontCache fonts;
+
+  // Prepare: where the frame lies on the paper and on the ground.
+  sheet::Layout layout = sheet::compute_layout(project, style, options.sheet_id);
+  const MapFrame& frame = layout.frame;
+  pdf::LayeredCanvas canvas(layout.page_w_mm, layout.page_h_mm);
+
+  // Read and prepare the features first: names and contour labels are placed together, and
+  // contours need the lakes they must not cross.
+  auto t0 = Clock::now();
+  PreparedLayers prepared;
+  FeatureLayersResult features = prepare_feature_layers(project, style, frame, fonts, prepared);
+  report.layers = features.reports;
+  report.seconds_features = seconds_since(t0);
+
+  t0 = Clock::now();
+  SheetContours sheet_contours =
+      build_contours(project, style, frame, features.water_polygons_ground, fonts);
+  report.seconds_contours = seconds_since(t0);
+
+  // Place every label on the sheet against one collision index.
+  t0 = Clock::now();
+  text::CollisionIndex index(Box::of(0, 0, layout.page_w_mm, layout.page_h_mm));
+  index.set_bounds(frame.page_box_mm());
+  index.insert_all(features.obstacles);
+  std::vector<labels::Candidate> candidates = std::move(features.name_candidates);
+  const std::size_t first_contour_label = candidates.size();
+  for (auto& c : sheet_contours.labels) candidates.push_back(std::move(c));
+  auto counts = labels::place(candidates, index);
+  for (auto& layer : report.layers) {
+    auto it = counts.find(layer.layer);
+    if (it == counts.end()) continue;
+    layer.labels_placed = it->second.placed;
+    layer.labels_dropped = it->second.dropped;
+  }
+  for (const auto& [layer, count] : counts) {
+    log::debug("labels {}: {} placed, {} dropped", layer, count.placed, count.dropped);
+  }
+  std::vector<labels::Candidate> contour_labels(
+      std::make_move_iterator(candidates.begin() + first_contour_label),
+      std::make_move_iterator(candidates.end()));
+  candidates.resize(first_contour_label);
+  report.seconds_labels = seconds_since(t0);
+
+  // Draw, bottom to top: relief, contours, feature layers, names, grid and collar.
+  t0 = Clock::now();
+  if (!draw_relief(canvas.begin_group("relief"), project, style, frame,
+                   sheet_contours.interval_m)) {
+    report.warnings.push_back("no relief under the map frame");
+  }
+  canvas.end_group();
+  report.seconds_relief = seconds_since(t0);
+
+  cairo_t* cr = canvas.begin_group("contours");
+  cairo_save(cr);
+  clip_to_neatline(cr, frame);
+  contours::draw_contours(cr, sheet_contours.lines, contour_labels, frame, style.contours);
+  contours::draw_spot_heights(cr, sheet_contours.spots, frame, style.contours);
+  labels::draw_placed(cr, contour_labels);
+  cairo_restore(cr);
+  canvas.end_group();
+
+  draw_feature_layers(canvas, prepared, style);
+
+  cr = canvas.begin_group("names");
+  labels::draw_placed(cr, candidates);
+  canvas.end_group();
+
+  sheet::SheetInfo info = sheet::describe_sheet(project, layout);
+  info.contour_interval_m = sheet_contours.interval_m;
+  sheet::draw_neatline_and_grid(canvas.begin_group("grid"), layout, style, fonts);
+  canvas.end_group();
+  sheet::draw_collar(canvas.begin_group("collar"), layout, project, style, info,
+                     features.legend_rules, fonts);
+  canvas.end_group();
+
+  // Finish: the file appears whole or not at all.
+  t0 = Clock::now();
+  AtomicOutput out(output);
+  if (options.format == OutputFormat::png) {
+    canvas.finish_png(out.temp_path(), options.raster_dpi);
+  } else {
+    pdf::Metadata meta;
+    meta.title = project.title;
+    meta.subject = project.subtitle.empty() ? "Topographic sheet" : project.subtitle;
+    meta.keywords = "topographic map; contours; " + frame.crs_name;
+    meta.author = project.producer;
+    canvas.finish_pdf(out.temp_path(), registration(frame), meta);
+  }
+  out.commit();
+  report.seconds_finish = seconds_since(t0);
+  report.seconds_total = seconds_since(t_start);
+  report.warnings.insert(report.warnings.end(), warnings.warnings().begin(),
+                         warnings.warnings().end());
+  return report;
+}
+
+}  // namespace sheetmill::render

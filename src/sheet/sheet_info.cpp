@@ -1,0 +1,134 @@
+#include "sheetmill/sheet/sheet_info.hpp"
+
+#include <fmt/format.h>
+
+#include <chrono>
+#include <cmath>
+#include <cstdio>
+#include <optional>
+
+#include "sheetmill/core/error.hpp"
+#include "sheetmill/geomag/model.hpp"
+#include "sheetmill/sheet/dms.hpp"
+#include "sheetmill/sheet/nice_numbers.hpp"
+#include "sheetmill/sheet/sheet_crs.hpp"
+
+namespace sheetmill::sheet {
+
+namespace {
+
+std::string today() {
+  auto now = std::chrono::system_clock::now();
+  std::chrono::year_month_day ymd{std::chrono::floor<std::chrono::days>(now)};
+  char buf[16];
+  std::snprintf(buf, sizeof buf, "%04d-%02u-%02u", static_cast<int>(ymd.year()),
+                static_cast<unsigned>(ymd.month()), static_cast<unsigned>(ymd.day()));
+  return buf;
+}
+
+void fill_north(NorthInfo& n, const project::Project& project, const SheetCrs& crs,
+                const Layout& layout) {
+  Point c = crs.to_lonlat(layout.frame.ground.centre());
+  n.centre_lonlat = c;
+  PointFactors f = crs.factors_at(c);
+  n.grid_convergence_deg = f.grid_convergence_deg;
+  n.scale_factor = f.scale_factor;
+  const auto& mag = project.magnetic;
+  n.date = mag.date.value_or(today());
+  if (mag.declination_deg) {
+    n.declination_deg = mag.declination_deg;
+    n.annual_change_deg = mag.annual_change_deg;
+    n.source = "stated in the project";
+  } else if (mag.model_file) {
+    auto model = geomag::Model::load(*mag.model_file);
+    double year = 0;
+    try {
+      year = geomag::decimal_year(n.date);
+    } catch (const Error& e) {
+      throw_input_error(SourceLocation{project.file.string(), 0, 0, "magnetic.date"}, e.message());
+    }
+    // The sheet centre's latitude is on the CRS's own datum; the difference to WGS 84 (metres)
+    // is far below what changes the declination at the diagram's precision.
+    geomag::Field field;
+    try {
+      field = model.at(c.y, c.x, 0.0, year);
+    } catch (const Error& e) {
+      throw_input_error(SourceLocation{project.file.string(), 0, 0, "magnetic.date"}, e.message());
+    }
+    n.declination_deg = field.declination_deg;
+    n.annual_change_deg = field.annual_change_deg;
+    n.source = model.name();
+  }
+}
+
+}  // namespace
+
+SheetInfo describe_sheet(const project::Project& project, const Layout& layout,
+                         const TileIndexContents* index) {
+  SheetInfo info;
+  SheetCrs crs = SheetCrs::resolve(project.crs, "crs");
+  info.crs_name = crs.name();
+  info.datum_name = crs.datum_name();
+  info.projection_name = crs.projection_name();
+  info.epsg = crs.epsg();
+  info.grid_interval_m = grid_interval_m(layout.frame.scale_denominator);
+  if (project.elevation.vertical_datum) info.vertical_datum = *project.elevation.vertical_datum;
+  if (project.contours.interval_m) info.contour_interval_m = *project.contours.interval_m;
+  const auto& vu = project.elevation.vertical_unit;
+  if (vu && (*vu == "ft" || *vu == "us-ft")) info.scale_bar_units = {"m", "ft"};
+  fill_north(info.north, project, crs, layout);
+
+  // Read the index here when the caller did not (a single render); batch renders pass theirs.
+  std::optional<TileIndexContents> own_index;
+  if (!index && layout.index_sheet && project.tile_index) {
+    own_index = read_tile_index(*project.tile_index, project.crs);
+    index = &*own_index;
+  }
+  if (layout.index_sheet) {
+    const IndexSheet& s = *layout.index_sheet;
+    info.sheet_id = s.id;
+    info.sheet_name = s.name;
+    if (index) {
+      Point c = s.bounds.centre();
+      for (const IndexSheet* n : adjoining_sheets(*index, s)) {
+        Point d = n->bounds.centre() - c;
+        AdjoiningSheet a{n->id, n->name, 0, 0};
+        if (std::abs(d.x) > 0.25 * s.bounds.width()) a.column = d.x > 0 ? 1 : -1;
+        if (std::abs(d.y) > 0.25 * s.bounds.height()) a.row = d.y > 0 ? -1 : 1;
+        if (a.column != 0 || a.row != 0) info.neighbours.push_back(a);
+      }
+      for (const auto& o : index->sheets) info.index_outlines.push_back(o.outline);
+      info.location_caption = "Sheets of the index";
+    }
+  }
+  if (info.index_outlines.empty()) {
+    // The one-degree cell of the graticule around the sheet centre.
+    Point c = info.north.centre_lonlat;
+    double lon0 = std::floor(c.x), lat0 = std::floor(c.y);
+    std::vector<Point> cell;
+    const int steps = 16;
+    auto add = [&](Point a, Point b) {
+      for (int i = 0; i < steps; ++i) {
+        Point ll = a + (b - a) * (double(i) / steps);
+        try {
+          cell.push_back(crs.to_ground(ll));
+        } catch (const Error&) {
+          // Outside the projection's domain: leave that piece out.
+        }
+      }
+    };
+    add({lon0, lat0 + 1}, {lon0 + 1, lat0 + 1});
+    add({lon0 + 1, lat0 + 1}, {lon0 + 1, lat0});
+    add({lon0 + 1, lat0}, {lon0, lat0});
+    add({lon0, lat0}, {lon0, lat0 + 1});
+    if (cell.size() >= 3) info.index_outlines.push_back(cell);
+    info.location_caption =
+        fmt::format("In the cell {} to {}, {} to {}", format_dms(lat0, AngleKind::latitude, 3600),
+                    format_dms(lat0 + 1, AngleKind::latitude, 3600),
+                    format_dms(lon0, AngleKind::longitude, 3600),
+                    format_dms(lon0 + 1, AngleKind::longitude, 3600));
+  }
+  return info;
+}
+
+}  // namespace sheetmill::sheet

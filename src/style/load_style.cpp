@@ -1,0 +1,146 @@
+// load_style(): the top of a style file, its layers and their rules.
+#include <algorithm>
+#include <map>
+
+#include "style/reader.hpp"
+
+namespace sheetmill::style {
+
+namespace {
+
+using config::ConfigNode;
+using detail::Reader;
+
+// "1:25000" or 25000; "any" for an open end (0).
+double read_scale(const ConfigNode& n) {
+  std::string s = n.as_string();
+  if (s == "any") return 0;
+  if (s.rfind("1:", 0) == 0) s = s.substr(2);
+  auto v = detail::parse_number(s);
+  if (!v || !(*v >= 1)) n.fail_expected("a scale such as 1:25000 (or any)");
+  return *v;
+}
+
+void read_scales(const ConfigNode& n, Layer& layer) {
+  auto ends = n.items();
+  if (ends.size() != 2) n.fail_expected("two scales [largest, smallest] such as [1:5000, 1:50000]");
+  layer.min_scale = read_scale(ends[0]);
+  layer.max_scale = read_scale(ends[1]);
+  if (layer.min_scale > 0 && layer.max_scale > 0 && layer.min_scale > layer.max_scale) {
+    n.fail("expected the larger scale first (1:5000 before 1:50000)");
+  }
+}
+
+// The symbol keys a rule and a one-rule layer share.
+void read_symbols(const ConfigNode& n, Reader& r, Rule& rule) {
+  if (auto l = n.find("line")) rule.line = r.line(*l);
+  if (auto a = n.find("area")) rule.area = r.area(*a);
+  if (auto p = n.find("point")) rule.point = r.point(*p);
+  if (auto g = n.find("legend")) rule.legend = g->as_string();
+}
+
+Rule read_rule(const ConfigNode& n, Reader& r, const Layer& layer) {
+  if (!n.is_map()) n.fail_expected("a rule (a mapping)");
+  n.expect_keys({"name", "when", "legend", "line", "area", "point", "label"});
+  Rule rule;
+  if (auto nm = n.find("name")) rule.name = nm->as_string();
+  if (auto w = n.find("when")) rule.filter = detail::read_filter(*w);
+  read_symbols(n, r, rule);
+  if (auto l = n.find("label")) {
+    rule.label = r.label(*l, layer.label.value_or(LabelStyle{}));
+    if (rule.label->text_template.empty()) l->fail("missing required key 'text'");
+  }
+  if (!rule.line && !rule.area && !rule.point && !rule.label) {
+    n.fail("empty rule: expected line, area, point or label");
+  }
+  return rule;
+}
+
+Layer read_layer(const ConfigNode& n, Reader& r) {
+  if (!n.is_map()) n.fail_expected("a layer (a mapping with id and source)");
+  n.expect_keys({"id", "source", "group", "order", "show_between", "blocks_labels", "water_surface",
+                 "label", "rules", "legend", "line", "area", "point"});
+  Layer layer;
+  layer.id = n.at("id").as_string();
+  if (layer.id.empty()) n.at("id").fail_expected("a layer id");
+  layer.source = n.at("source").as_string();
+  if (auto g = n.find("group")) layer.group = g->as_string();
+  if (auto o = n.find("order")) layer.order = o->as_int();
+  if (auto s = n.find("show_between")) read_scales(*s, layer);
+  if (auto b = n.find("blocks_labels")) layer.obstacle = b->as_bool();
+  if (auto w = n.find("water_surface")) layer.water_surface = w->as_bool();
+  if (auto l = n.find("label")) {
+    layer.label = r.label(*l);
+    if (layer.label->text_template.empty()) l->fail("missing required key 'text'");
+  }
+  bool direct = n.has("line") || n.has("area") || n.has("point") || n.has("legend");
+  if (auto rules = n.find("rules")) {
+    if (direct) n.fail("give either rules or one symbol (line, area, point, legend), not both");
+    for (const auto& item : rules->items()) {
+      layer.rules.push_back(read_rule(item, r, layer));
+      // Unnamed rules are named after their place, for the log: "roads.rules[2]".
+      if (layer.rules.back().name.empty()) {
+        layer.rules.back().name =
+            layer.id + ".rules[" + std::to_string(layer.rules.size() - 1) + "]";
+      }
+    }
+    if (layer.rules.empty()) rules->fail("expected at least one rule, got an empty list");
+  } else if (direct) {
+    Rule rule;
+    rule.name = layer.id;
+    read_symbols(n, r, rule);
+    if (!rule.line && !rule.area && !rule.point) n.fail("a legend needs a line, area or point");
+    layer.rules.push_back(std::move(rule));
+  } else if (layer.label) {
+    Rule rule;  // a names-only layer: one rule that draws nothing but the layer's label
+    rule.name = layer.id;
+    layer.rules.push_back(std::move(rule));
+  } else {
+    n.fail("expected rules, a symbol (line, area or point) or a label");
+  }
+  return layer;
+}
+
+}  // namespace
+
+Style load_style(const std::filesystem::path& path) {
+  ConfigNode root = config::load_file(path);
+  detail::reject_duplicate_keys(root);
+  root.expect_keys({"name", "about", "colours", "symbols", "label_styles", "layers", "relief",
+                    "contours", "grid", "sheet"});
+  Reader r(root.find("colours"), root.find("symbols"));
+  if (auto ls = root.find("label_styles")) r.read_label_styles(*ls);
+  Style s;
+  s.file = path;
+  s.name = root.get_or<std::string>("name", path.stem().string());
+  s.palette = r.palette();
+  r.check_all_symbols();
+
+  std::map<std::string, int> seen_ids;  // id -> line of first use
+  if (auto layers = root.find("layers")) {
+    for (const auto& item : layers->items()) {
+      Layer layer = read_layer(item, r);
+      int line = item.at("id").location().line;
+      auto [it, fresh] = seen_ids.emplace(layer.id, line);
+      if (!fresh) {
+        item.at("id").fail("duplicate layer id '" + layer.id + "' (first used on line " +
+                           std::to_string(it->second) + ")");
+      }
+      s.layers.push_back(std::move(layer));
+    }
+  }
+  std::stable_sort(s.layers.begin(), s.layers.end(),
+                   [](const Layer& a, const Layer& b) { return a.order < b.order; });
+
+  s.relief = detail::default_relief();
+  s.contours = detail::default_contours(r);
+  s.grid = detail::default_grid(r);
+  s.furniture = detail::default_furniture(r);
+  if (auto n = root.find("relief")) s.relief = detail::read_relief(*n, r, s.relief);
+  if (auto n = root.find("contours")) s.contours = detail::read_contours(*n, r, s.contours);
+  if (auto n = root.find("grid")) s.grid = detail::read_grid(*n, r, s.grid);
+  if (auto n = root.find("sheet")) s.furniture = detail::read_furniture(*n, r, s.furniture);
+  return s;
+}
+
+}  // namespace sheetmill::style

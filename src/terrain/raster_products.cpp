@@ -1,0 +1,201 @@
+#include "sheetmill/terrain/raster_products.hpp"
+
+#include <cpl_string.h>
+
+#include <algorithm>
+#include <chrono>
+#include <cmath>
+#include <functional>
+#include <future>
+
+#include "sheetmill/core/atomic_file.hpp"
+#include "sheetmill/core/error.hpp"
+#include "sheetmill/core/gdal_env.hpp"
+#include "sheetmill/core/log.hpp"
+#include "sheetmill/terrain/dem_source.hpp"
+#include "terrain/parallel_rows.hpp"
+
+namespace sheetmill::terrain {
+
+namespace {
+
+// A tiled, compressed GeoTIFF at `path` with the source's grid and CRS.
+DatasetPtr create_output(const std::string& path, const DemSource& src, int bands,
+                         GDALDataType type, const ProductOptions& options) {
+  gdal_init();
+  GDALDriver* gtiff = GetGDALDriverManager()->GetDriverByName("GTiff");
+  CPLStringList opts;
+  opts.SetNameValue("TILED", "YES");
+  opts.SetNameValue("BLOCKXSIZE", "256");
+  opts.SetNameValue("BLOCKYSIZE", "256");
+  if (options.compression == "zstd") {
+    // Level 1: relief compresses well even so (a 36 M-cell hillshade to ~3 MB) at little cost.
+    opts.SetNameValue("COMPRESS", "ZSTD");
+    opts.SetNameValue("ZSTD_LEVEL", "1");
+  } else if (options.compression == "deflate") {
+    opts.SetNameValue("COMPRESS", "DEFLATE");
+  } else {
+    throw_input_error(path,
+                      "compression \"" + options.compression + "\": expected zstd or deflate");
+  }
+  if (type == GDT_Float32) opts.SetNameValue("PREDICTOR", "3");
+  opts.SetNameValue("NUM_THREADS", "ALL_CPUS");
+  opts.SetNameValue("BIGTIFF", "IF_SAFER");
+  if (bands >= 3) opts.SetNameValue("PHOTOMETRIC", "RGB");
+  if (bands == 4) opts.SetNameValue("ALPHA", "UNASSOCIATED");
+  GdalErrorScope errors;
+  const RasterGrid& g = src.grid();
+  DatasetPtr ds(gtiff->Create(path.c_str(), g.width, g.height, bands, type, opts.List()));
+  if (!ds) {
+    throw_input_error(
+        path,
+        "cannot create the output GeoTIFF" +
+            (errors.last_failure().empty() ? std::string() : " (" + errors.last_failure() + ")"));
+  }
+  double gt[6];
+  std::copy(g.geotransform, g.geotransform + 6, gt);
+  ds->SetGeoTransform(gt);
+  ds->SetProjection(g.crs_wkt.c_str());
+  return ds;
+}
+
+// Writes rows of one band (band 0 = the per-dataset mask).
+void write_rows(GDALDataset& ds, int band, int row0, int rows, int width, GDALDataType type,
+                const void* data, const std::string& path) {
+  GdalErrorScope errors;
+  GDALRasterBand* b = band > 0 ? ds.GetRasterBand(band) : ds.GetRasterBand(1)->GetMaskBand();
+  if (b->RasterIO(GF_Write, 0, row0, width, rows, const_cast<void*>(data), width, rows, type, 0, 0,
+                  nullptr) != CE_None) {
+    throw_input_error(path, "writing failed" + (errors.last_failure().empty()
+                                                    ? std::string()
+                                                    : " (" + errors.last_failure() + ")"));
+  }
+}
+
+// Runs `band_fn(dem, first, count, row0)` for consecutive bands of rows: `dem` holds rows
+// [row0 - 1, row0 + count + 1) clipped to the raster, and the band's own rows start at local
+// row `first`. The next band is read in another thread while this one is computed and
+// written (the source is only ever touched by one thread at a time).
+template <class Fn>
+void for_each_band(const DemSource& src, GDALDataset& out, const ProductOptions& options,
+                   Fn&& band_fn) {
+  const int h = src.grid().height;
+  const int step = std::max(1, options.band_rows);
+  auto read_band = [&src, h, step](int row0, Dem& dem) {
+    const int count = std::min(step, h - row0);
+    const int read0 = std::max(0, row0 - 1);
+    src.read_rows_into(read0, count + (row0 - read0) + 1, dem);
+    // Each source block is needed once (plus a margin row): drop them so the block cache
+    // does not grow with the raster.
+    src.dataset().FlushCache(false);
+  };
+  Dem current, next;
+  if (h > 0) read_band(0, current);
+  for (int row0 = 0; row0 < h; row0 += step) {
+    const int count = std::min(step, h - row0);
+    std::future<void> prefetch;
+    if (row0 + step < h) {
+      prefetch = std::async(std::launch::async, read_band, row0 + step, std::ref(next));
+    }
+    band_fn(static_cast<const Dem&>(current), row0 - std::max(0, row0 - 1), count, row0);
+    out.FlushCache(false);  // compress and write this band's tiles (on all cores) now
+    if (prefetch.valid()) prefetch.get();
+    std::swap(current, next);
+    if (options.progress) options.progress(static_cast<double>(row0 + count) / h);
+  }
+}
+
+void finish(DatasetPtr& ds, AtomicOutput& out) {
+  auto t0 = std::chrono::steady_clock::now();
+  GdalErrorScope errors;
+  ds.reset();  // closing flushes the last tiles; GDAL reports failures through the scope
+  if (!errors.last_failure().empty()) {
+    throw_input_error(out.target().string(), "writing failed (" + errors.last_failure() + ")");
+  }
+  auto t1 = std::chrono::steady_clock::now();
+  out.commit();
+  auto t2 = std::chrono::steady_clock::now();
+  log::debug("{}: closed in {:.3f} s, committed (fsync, rename) in {:.3f} s", out.target().string(),
+             std::chrono::duration<double>(t1 - t0).count(),
+             std::chrono::duration<double>(t2 - t1).count());
+}
+
+}  // namespace
+
+void write_hillshade_raster(const std::string& dem_path, const std::string& out_path,
+                            const ShadeParams& params, const ProductOptions& options) {
+  DemSource src(dem_path, options.read);
+  AtomicOutput out(out_path);
+  DatasetPtr ds = create_output(out.temp_path().string(), src, 1, GDT_Byte, options);
+  ds->GetRasterBand(1)->SetNoDataValue(0);
+  const int w = src.grid().width;
+  std::vector<std::uint8_t> bytes;
+  for_each_band(src, *ds, options, [&](const Dem& dem, int first, int count, int row0) {
+    bytes.resize(static_cast<std::size_t>(w) * count);
+    detail::parallel_rows(count, [&](int b, int e) {
+      hillshade_rows(dem, params, first + b, first + e,
+                     bytes.data() + static_cast<std::size_t>(b) * w);
+    });
+    write_rows(*ds, 1, row0, count, w, GDT_Byte, bytes.data(), out_path);
+  });
+  finish(ds, out);
+}
+
+void write_slope_raster(const std::string& dem_path, const std::string& out_path,
+                        const SlopeParams& params, const ProductOptions& options) {
+  DemSource src(dem_path, options.read);
+  AtomicOutput out(out_path);
+  DatasetPtr ds = create_output(out.temp_path().string(), src, 1, GDT_Float32, options);
+  ds->GetRasterBand(1)->SetNoDataValue(kSlopeNodata);
+  const int w = src.grid().width;
+  std::vector<float> values;
+  for_each_band(src, *ds, options, [&](const Dem& dem, int first, int count, int row0) {
+    values.resize(static_cast<std::size_t>(w) * count);
+    detail::parallel_rows(count, [&](int b, int e) {
+      slope_rows(dem, params, first + b, first + e,
+                 values.data() + static_cast<std::size_t>(b) * w);
+    });
+    for (float& v : values) {
+      if (std::isnan(v)) v = static_cast<float>(kSlopeNodata);
+    }
+    write_rows(*ds, 1, row0, count, w, GDT_Float32, values.data(), out_path);
+  });
+  finish(ds, out);
+}
+
+void write_tint_raster(const std::string& dem_path, const std::string& out_path,
+                       const ReliefParams& params, bool rgba, const ProductOptions& options) {
+  if (!params.tint) throw_internal_error("write_tint_raster: no tint ramp");
+  validate_ramp(params.ramp, out_path);
+  DemSource src(dem_path, options.read);
+  AtomicOutput out(out_path);
+  const int bands = rgba ? 4 : 3;
+  DatasetPtr ds = create_output(out.temp_path().string(), src, bands, GDT_Byte, options);
+  if (!rgba) ds->CreateMaskBand(GMF_PER_DATASET);
+  const int w = src.grid().width;
+  std::vector<std::uint8_t> planes[4];
+  for_each_band(src, *ds, options, [&](const Dem& dem, int first, int count, int row0) {
+    ReliefImage img = render_relief(dem, params);
+    const std::size_t n = static_cast<std::size_t>(w) * count;
+    for (auto& p : planes) p.resize(n);
+    for (std::size_t i = 0; i < n; ++i) {
+      std::uint32_t px = img.argb[static_cast<std::size_t>(first) * w + i];
+      std::uint32_t a = px >> 24;
+      // Back from premultiplied to straight colour.
+      auto straight = [a](std::uint32_t v) {
+        return static_cast<std::uint8_t>(
+            a == 0 ? 0 : std::min<std::uint32_t>(255, (v * 255 + a / 2) / a));
+      };
+      planes[0][i] = straight((px >> 16) & 0xff);
+      planes[1][i] = straight((px >> 8) & 0xff);
+      planes[2][i] = straight(px & 0xff);
+      planes[3][i] = rgba ? static_cast<std::uint8_t>(a) : (a == 0 ? 0 : 255);
+    }
+    for (int b = 0; b < 3; ++b)
+      write_rows(*ds, b + 1, row0, count, w, GDT_Byte, planes[b].data(), out_path);
+    write_rows(*ds, rgba ? 4 : 0, row0, count, w, GDT_Byte, planes[3].data(), out_path);
+  });
+  finish(ds, out);
+}
+
+}  // namespace sheetmill::terrain
