@@ -43,8 +43,8 @@ void add_contours_command(CLI::App& app, Action& action, const GlobalOptions&) {
   cmd->callback([&action, args] {
     action = [args] {
       auto r = contours::contour_file(args->dem, args->out, args->params, !args->raw);
-      log::info("contours: wrote {} ({} lines at {} m, {} vertices, {:.1f} km)", args->out,
-                r.lines, r.interval_m, r.vertices, r.length_m / 1000);
+      log::info("contours: wrote {} ({} lines at {} m, {} vertices, {:.1f} km)", args->out, r.lines,
+                r.interval_m, r.vertices, r.length_m / 1000);
       return 0;
     };
   });

@@ -41,8 +41,8 @@ void add_exhibit_command(CLI::App& app, Action& action, const GlobalOptions&) {
       }
       exhibit::ExhibitReport r = exhibit::render_exhibit(project, args->output, options);
       log::info("wrote {} ({}, 1:{:.0f}) in {:.1f} s: relief {} x {} px in {} strips",
-                r.output.string(), r.layout.paper_name, r.layout.frame.scale_denominator,
-                r.seconds, r.relief_width_px, r.relief_height_px, r.relief_strips);
+                r.output.string(), r.layout.paper_name, r.layout.frame.scale_denominator, r.seconds,
+                r.relief_width_px, r.relief_height_px, r.relief_strips);
       return 0;
     };
   });

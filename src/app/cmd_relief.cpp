@@ -20,6 +20,7 @@ struct DemInput {
   std::string out;
   std::string crs;
   std::string z_unit;
+  std::string compression = "zstd";
 
   terrain::DemReadOptions read_options() const {
     terrain::DemReadOptions o;
@@ -35,6 +36,10 @@ void add_dem_options(CLI::App* cmd, DemInput& in) {
   cmd->add_option("--dem-crs", in.crs, "The DEM's CRS when the file states none (e.g. EPSG:32633)");
   cmd->add_option("--z-unit", in.z_unit, "Elevation unit when the file does not say: m, ft, us-ft")
       ->check(CLI::IsMember({"m", "ft", "us-ft"}));
+  cmd->add_option("--compression", in.compression,
+                  "zstd (fast) or deflate (read by every TIFF reader)")
+      ->check(CLI::IsMember({"zstd", "deflate"}))
+      ->capture_default_str();
 }
 
 struct ShadeInput {
@@ -87,6 +92,7 @@ void add_relief_commands(CLI::App& app, Action& action, const GlobalOptions& glo
       action = [&global, in, shade] {
         terrain::ProductOptions o;
         o.read = in->read_options();
+        o.compression = in->compression;
         o.progress = progress_for("shade", global);
         terrain::write_hillshade_raster(in->dem, in->out, shade->params(), o);
         return 0;
@@ -110,6 +116,7 @@ void add_relief_commands(CLI::App& app, Action& action, const GlobalOptions& glo
       action = [&global, in, units, method] {
         terrain::ProductOptions o;
         o.read = in->read_options();
+        o.compression = in->compression;
         o.progress = progress_for("slope", global);
         terrain::SlopeParams p{terrain::parse_slope_units(*units), *method == "zevenbergen-thorne"};
         terrain::write_slope_raster(in->dem, in->out, p, o);
@@ -142,6 +149,7 @@ void add_relief_commands(CLI::App& app, Action& action, const GlobalOptions& glo
         p.shading = shade->params();
         terrain::ProductOptions o;
         o.read = in->read_options();
+        o.compression = in->compression;
         o.progress = progress_for("tint", global);
         terrain::write_tint_raster(in->dem, in->out, p, *rgba, o);
         return 0;

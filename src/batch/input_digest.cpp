@@ -45,6 +45,10 @@ DigestInputs digest_inputs_for(const project::Project& p, const style::Style& st
     const auto& s = *p.contours.from_layer;
     in.vectors.push_back({"contours", s.path, s.layer, s.where, s.required});
   }
+  if (p.tile_index) {
+    // The sheet's neighbours in the index: their IDs and names are in the collar's diagrams.
+    in.vectors.push_back({"tile index", p.tile_index->path, p.tile_index->layer, "", true});
+  }
   in.dem_path = p.elevation.dem;
   in.index_crs_wkt = index_crs_wkt;
   in.margin_m = 10.0 * p.scale / 1000.0;  // 10 mm on paper

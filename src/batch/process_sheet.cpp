@@ -33,6 +33,13 @@ int BatchResult::count(SheetStatus s) const {
 
 namespace {
 
+double cpu_seconds_now() {
+  rusage u{};
+  ::getrusage(RUSAGE_SELF, &u);
+  return double(u.ru_utime.tv_sec + u.ru_stime.tv_sec) +
+         double(u.ru_utime.tv_usec + u.ru_stime.tv_usec) * 1e-6;
+}
+
 long peak_rss_kib() {
   rusage u{};
   ::getrusage(RUSAGE_SELF, &u);
@@ -56,6 +63,7 @@ std::string change_reason(const std::optional<Stamp>& old, const SheetDigest& no
 
 SheetOutcome process_sheet(const SheetJob& job, SheetTasks& tasks, const RunOptions& options) {
   auto t0 = std::chrono::steady_clock::now();
+  double cpu0 = cpu_seconds_now();
   SheetOutcome o;
   o.id = job.id;
   o.name = job.name;
@@ -112,6 +120,7 @@ SheetOutcome process_sheet(const SheetJob& job, SheetTasks& tasks, const RunOpti
     }
   }
   o.seconds = std::chrono::duration<double>(std::chrono::steady_clock::now() - t0).count();
+  o.cpu_seconds = cpu_seconds_now() - cpu0;
   o.worker_peak_rss_kib = peak_rss_kib();
   return o;
 }

@@ -29,10 +29,13 @@ void write_atomically(const fs::path& path, const std::string& text) {
 
 void write_report_json(const BatchResult& r, const ReportContext& c, const fs::path& path) {
   long peak = 0;
-  double sheet_seconds = 0;
+  double sheet_seconds = 0, sheet_cpu = 0;
   for (const auto& o : r.outcomes) {
     peak = std::max(peak, o.worker_peak_rss_kib);
-    if (o.status == SheetStatus::rendered) sheet_seconds += o.seconds;
+    if (o.status == SheetStatus::rendered) {
+      sheet_seconds += o.seconds;
+      sheet_cpu += o.cpu_seconds;
+    }
   }
   int rendered = r.count(SheetStatus::rendered);
   std::string t = "{\n";
@@ -52,6 +55,8 @@ void write_report_json(const BatchResult& r, const ReportContext& c, const fs::p
                    r.seconds > 0 ? rendered / r.seconds * 60.0 : 0.0);
   t += fmt::format("  \"mean_seconds_per_rendered_sheet\": {:.3f},\n",
                    rendered ? sheet_seconds / rendered : 0.0);
+  t += fmt::format("  \"mean_cpu_seconds_per_rendered_sheet\": {:.3f},\n",
+                   rendered ? sheet_cpu / rendered : 0.0);
   t += fmt::format("  \"peak_worker_rss_kib\": {},\n", peak);
   t += "  \"sheets\": [";
   for (std::size_t i = 0; i < r.outcomes.size(); ++i) {
@@ -59,7 +64,7 @@ void write_report_json(const BatchResult& r, const ReportContext& c, const fs::p
     t += i ? ",\n    {" : "\n    {";
     t += "\"id\": " + json_quote(o.id) + ", \"name\": " + json_quote(o.name);
     t += ", \"status\": " + json_quote(status_name(o.status));
-    t += fmt::format(", \"seconds\": {:.3f}", o.seconds);
+    t += fmt::format(", \"seconds\": {:.3f}, \"cpu_seconds\": {:.3f}", o.seconds, o.cpu_seconds);
     t += ", \"output\": " + json_quote(o.output.string());
     t += fmt::format(", \"output_bytes\": {}", o.output_bytes);
     t += ", \"reason\": " + json_quote(o.reason);
@@ -77,12 +82,12 @@ void write_report_json(const BatchResult& r, const ReportContext& c, const fs::p
 }
 
 void write_report_csv(const BatchResult& r, const fs::path& path) {
-  std::string t = "id,name,status,seconds,warnings,output,output_bytes,reason,error\n";
+  std::string t = "id,name,status,seconds,cpu_seconds,warnings,output,output_bytes,reason,error\n";
   for (const auto& o : r.outcomes) {
     std::string warnings;
     for (const auto& w : o.warnings) warnings += (warnings.empty() ? "" : " | ") + w;
     t += csv_field(o.id) + "," + csv_field(o.name) + "," + status_name(o.status) + "," +
-         fmt::format("{:.3f}", o.seconds) + "," + csv_field(warnings) + "," +
+         fmt::format("{:.3f},{:.3f}", o.seconds, o.cpu_seconds) + "," + csv_field(warnings) + "," +
          csv_field(o.output.string()) + "," + std::to_string(o.output_bytes) + "," +
          csv_field(o.reason) + "," + csv_field(o.error) + "\n";
   }

@@ -1,5 +1,6 @@
 #include "sheetmill/batch/runner.hpp"
 
+#include <cpl_conv.h>
 #include <fcntl.h>
 #include <fmt/format.h>
 #include <poll.h>
@@ -41,6 +42,8 @@ struct Worker {
   // A sheet's warnings go to its report (and a count to the progress line); on the terminal
   // they would tear the progress bar and drown the log, unless asked for with --verbose.
   if (log::level() > log::Level::debug) log::set_level(log::Level::error);
+  // The workers already fill the CPUs; GDAL's own threads would only compete with them.
+  if (options.workers > 1) CPLSetConfigOption("GDAL_NUM_THREADS", "1");
   SheetTasks tasks;
   std::string setup_error;
   try {
@@ -143,6 +146,8 @@ BatchResult run_batch(const std::vector<SheetJob>& jobs, const WorkerSetup& setu
   int n_workers = options.workers > 0 ? options.workers : usable_cpus();
   n_workers = std::max(1, std::min<int>(n_workers, static_cast<int>(jobs.size())));
   result.workers = n_workers;
+  RunOptions worker_options = options;
+  worker_options.workers = n_workers;
   log::debug("batch: {} sheets on {} worker processes", jobs.size(), n_workers);
 
   // A worker that dies must not kill the batch with SIGPIPE when it is sent its next job.
@@ -178,7 +183,7 @@ BatchResult run_batch(const std::vector<SheetJob>& jobs, const WorkerSetup& setu
 
   try {
     for (int slot = 0; slot < n_workers; ++slot) {
-      workers.push_back(spawn(slot, jobs, setup, options, workers));
+      workers.push_back(spawn(slot, jobs, setup, worker_options, workers));
     }
     for (Worker& w : workers) assign(w);
     while (!workers.empty()) {
@@ -235,7 +240,7 @@ BatchResult run_batch(const std::vector<SheetJob>& jobs, const WorkerSetup& setu
         int slot = w.slot;
         workers.erase(workers.begin() + static_cast<long>(k));
         if (next < jobs.size()) {
-          workers.push_back(spawn(slot, jobs, setup, options, workers));
+          workers.push_back(spawn(slot, jobs, setup, worker_options, workers));
           assign(workers.back());
         }
         break;  // the pollfd list no longer matches the workers

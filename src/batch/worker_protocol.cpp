@@ -58,6 +58,7 @@ std::string encode_outcome(const SheetOutcome& o) {
   put_str(out, o.name);
   put_u64(out, static_cast<std::uint64_t>(o.status));
   put_f64(out, o.seconds);
+  put_f64(out, o.cpu_seconds);
   put_u64(out, o.warnings.size());
   for (const auto& w : o.warnings) put_str(out, w);
   put_str(out, o.error);
@@ -81,6 +82,7 @@ SheetOutcome decode_outcome(const std::string& payload) {
   }
   o.status = static_cast<SheetStatus>(status);
   o.seconds = r.f64();
+  o.cpu_seconds = r.f64();
   std::uint64_t n = r.u64();
   for (std::uint64_t i = 0; i < n; ++i) o.warnings.push_back(r.str());
   o.error = r.str();

@@ -55,7 +55,8 @@ double deviation(const PagePath& p, double s0, double s1, Point a, Point b) {
   if (len <= 0) return 1e9;
   double worst = 0;
   auto it = std::upper_bound(p.arc.begin(), p.arc.end(), s0);
-  for (std::size_t i = static_cast<std::size_t>(it - p.arc.begin()); i < p.pts.size() && p.arc[i] < s1; ++i)
+  for (std::size_t i = static_cast<std::size_t>(it - p.arc.begin());
+       i < p.pts.size() && p.arc[i] < s1; ++i)
     worst = std::max(worst, std::abs(cross(d, p.pts[i] - a)) / len);
   return worst;
 }
@@ -86,7 +87,8 @@ std::vector<std::pair<double, bool>> slots_on(const PagePath& p, const std::vect
   std::vector<std::pair<double, bool>> kept;
   for (const auto& s : slots)
     if (kept.empty() || s.first - kept.back().first >= 0.6 * spacing) kept.push_back(s);
-  if (p.closed && kept.size() > 1 && kept.front().first + p.length - kept.back().first < 0.6 * spacing)
+  if (p.closed && kept.size() > 1 &&
+      kept.front().first + p.length - kept.back().first < 0.6 * spacing)
     kept.pop_back();
   // Fill long stretches without a slot (and lines the ladder missed).
   double usable0 = p.closed ? 0 : label_len, usable1 = p.closed ? p.length : p.length - label_len;
@@ -146,7 +148,8 @@ ContourLabels contour_label_candidates(const std::vector<ContourLine>& lines,
   const Box page = frame.page_box_mm();
   std::vector<Point> ladder;
   for (double y = page.min_y + spacing / 2; y < page.max_y; y += spacing)
-    for (double x = page.min_x + spacing / 2; x < page.max_x; x += spacing) ladder.push_back({x, y});
+    for (double x = page.min_x + spacing / 2; x < page.max_x; x += spacing)
+      ladder.push_back({x, y});
   detail::DemSampler sampler(dem);
   text::TextPaint paint = paint_of(ls);
   std::map<std::string, std::shared_ptr<text::ShapedText>> shaped;
@@ -246,7 +249,7 @@ std::vector<labels::Candidate> spot_label_candidates(const std::vector<SpotHeigh
     Point at = frame.to_page(spot.ground);
     if (!page.contains(at)) continue;
     double round_m = spot.kind == SpotHeight::Kind::control ? std::min(style.spot_round_m, 0.1)
-                                                             : style.spot_round_m;
+                                                            : style.spot_round_m;
     std::string value = elevation_text(spot.elevation_m, round_m, ls.text_template);
     if (!spot.label.empty()) value = spot.label + " " + value;
     auto st = std::make_shared<text::ShapedText>(
@@ -267,7 +270,8 @@ std::vector<labels::Candidate> spot_label_candidates(const std::vector<SpotHeigh
     cand.may_drop = ls.may_drop;
     for (int k = 0; k < 4; ++k) {
       Point o = origins[k];
-      text::Quad box = text::box_quad(Box::of(o.x, o.y - st->ascent_mm, o.x + w, o.y + st->descent_mm));
+      text::Quad box =
+          text::box_quad(Box::of(o.x, o.y - st->ascent_mm, o.x + w, o.y + st->descent_mm));
       if (!std::all_of(box.begin(), box.end(), [&](Point q) { return page.contains(q); })) continue;
       labels::Placement pl;
       pl.footprint = {box, dot};

@@ -26,13 +26,15 @@ void write_geopackage(const std::filesystem::path& out, const std::vector<Contou
   AtomicOutput file(out);
   {
     DatasetPtr ds(drv->Create(file.temp_path().c_str(), 0, 0, 0, GDT_Unknown, nullptr));
-    if (!ds) throw_input_error(out.string(), "cannot create a GeoPackage: " + errors.last_failure());
+    if (!ds)
+      throw_input_error(out.string(), "cannot create a GeoPackage: " + errors.last_failure());
     OGRSpatialReference srs;
     bool has_srs = !crs_wkt.empty() && srs.importFromWkt(crs_wkt.c_str()) == OGRERR_NONE;
     const char* lco[] = {"SPATIAL_INDEX=YES", nullptr};
     OGRLayer* layer = ds->CreateLayer("contours", has_srs ? &srs : nullptr, wkbLineString,
                                       const_cast<char**>(lco));
-    if (!layer) throw_input_error(out.string(), "cannot create the layer: " + errors.last_failure());
+    if (!layer)
+      throw_input_error(out.string(), "cannot create the layer: " + errors.last_failure());
     OGRFieldDefn elev("elevation", OFTReal);
     layer->CreateField(&elev);
     for (const char* name : {"index", "depression", "supplementary"}) {
@@ -82,9 +84,9 @@ std::vector<ContourLine> read_layer(const std::string& path, const std::string& 
     std::string names;
     for (int i = 0; i < defn->GetFieldCount(); ++i)
       names += (i ? ", " : "") + std::string(defn->GetFieldDefn(i)->GetNameRef());
-    throw_input_error(path, "layer '" + std::string(layer->GetName()) + "' has no elevation field '" +
-                                elevation_field + "' (its fields: " +
-                                (names.empty() ? "none" : names) + ")");
+    throw_input_error(path, "layer '" + std::string(layer->GetName()) +
+                                "' has no elevation field '" + elevation_field +
+                                "' (its fields: " + (names.empty() ? "none" : names) + ")");
   }
   // Bring lines into the sheet CRS; filter by the sheet's box in the layer's own CRS.
   CoordinateTransformPtr to_sheet;
@@ -116,7 +118,8 @@ std::vector<ContourLine> read_layer(const std::string& path, const std::string& 
     ContourLine l;
     l.elevation_m = z;
     for (int i = 0; i < n; ++i) l.ground.push_back({ls.getX(i), ls.getY(i)});
-    if (n >= 4 && l.ground.front().x == l.ground.back().x && l.ground.front().y == l.ground.back().y) {
+    if (n >= 4 && l.ground.front().x == l.ground.back().x &&
+        l.ground.front().y == l.ground.back().y) {
       l.closed = true;
       l.ground.pop_back();
     }

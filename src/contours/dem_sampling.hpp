@@ -1,6 +1,6 @@
 #pragma once
-// Private: reading elevations and slopes from a terrain::Dem at ground positions. Cell values sit at
-// cell centres (GDAL's convention, the same the contour generator uses), so sampling between
+// Private: reading elevations and slopes from a terrain::Dem at ground positions. Cell values sit
+// at cell centres (GDAL's convention, the same the contour generator uses), so sampling between
 // centres is bilinear, as is the generator's interpolation along cell edges.
 
 #include <cmath>
@@ -57,9 +57,7 @@ class DemSampler {
   }
 
  private:
-  double at(int i, int j) const {
-    return static_cast<double>(dem_.at(i, j));
-  }
+  double at(int i, int j) const { return static_cast<double>(dem_.at(i, j)); }
   const terrain::Dem& dem_;  // not owned; outlives the sampler
   double x0_, y0_, cx_, cy_;
 };

@@ -63,15 +63,18 @@ void draw_contours(cairo_t* cr, const std::vector<ContourLine>& lines,
                                   style.supplementary ? *style.supplementary : style.line,
                                   depression_symbol(style, false), depression_symbol(style, true)};
   // Ordinary and half-interval lines first, index lines over them.
-  for (int g : {supplementary_group, ordinary, depression_ordinary, index_group, depression_index}) {
+  for (int g :
+       {supplementary_group, ordinary, depression_ordinary, index_group, depression_index}) {
     if (groups[g].empty()) continue;
-    for (int pass : draw::passes_of(symbols[g])) draw::draw_line_pass(cr, groups[g], symbols[g], pass);
+    for (int pass : draw::passes_of(symbols[g]))
+      draw::draw_line_pass(cr, groups[g], symbols[g], pass);
   }
 }
 
 void draw_spot_heights(cairo_t* cr, const std::vector<SpotHeight>& spots, const MapFrame& frame,
                        const style::ContourStyle& style) {
-  for (const auto& s : spots) draw::draw_point_symbol(cr, frame.to_page(s.ground), style.spot_symbol);
+  for (const auto& s : spots)
+    draw::draw_point_symbol(cr, frame.to_page(s.ground), style.spot_symbol);
 }
 
 }  // namespace sheetmill::contours

@@ -119,7 +119,8 @@ double propose_interval_m(double scale_denominator, double relief_m) {
 std::vector<ContourLine> generate_raw(const terrain::Dem& dem, const ContourParams& params) {
   validate(params);
   const std::string src;
-  if (dem.z.size() != static_cast<std::size_t>(dem.width()) * dem.height() || dem.width() < 2 || dem.height() < 2) {
+  if (dem.z.size() != static_cast<std::size_t>(dem.width()) * dem.height() || dem.width() < 2 ||
+      dem.height() < 2) {
     throw_input_error(src, "the DEM needs at least 2 x 2 cells to be contoured");
   }
   auto [lo, hi] = elevation_range(dem);
@@ -168,8 +169,8 @@ std::vector<ContourLine> generate_raw(const terrain::Dem& dem, const ContourPara
   // the marker because the generator tests for NaN itself.
   std::string interval = "LEVEL_INTERVAL=" + CPLString().Printf("%.17g", step);
   std::string base = "LEVEL_BASE=" + CPLString().Printf("%.17g", params.base_m);
-  const char* options[] = {interval.c_str(), base.c_str(), "ID_FIELD=0", "ELEV_FIELD=1",
-                           "NODATA=nan", nullptr};
+  const char* options[] = {interval.c_str(), base.c_str(), "ID_FIELD=0",
+                           "ELEV_FIELD=1",   "NODATA=nan", nullptr};
   if (GDALContourGenerateEx(band, layer, const_cast<char**>(options), nullptr, nullptr) !=
       CE_None) {
     throw_internal_error("GDAL's contour generator failed: " + errors.last_failure());

@@ -90,7 +90,8 @@ std::vector<Polyline> cut_out_quads(const Polyline& line, bool closed,
   }
   if (piece.size() >= 2) out.push_back(piece);
   // Rejoin the seam of a ring: the last piece runs on into the first.
-  if (closed && out.size() >= 2 && !inside_at_start && distance(out.back().back(), path.front()) == 0 &&
+  if (closed && out.size() >= 2 && !inside_at_start &&
+      distance(out.back().back(), path.front()) == 0 &&
       distance(out.front().front(), path.front()) == 0) {
     Polyline joined = out.back();
     joined.insert(joined.end(), out.front().begin() + 1, out.front().end());

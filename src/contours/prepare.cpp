@@ -6,24 +6,25 @@
 #include <thread>
 
 #include "contours/segment_grid.hpp"
+#include "sheetmill/core/log.hpp"
 
 namespace sheetmill::contours {
 
 namespace {
 
+using detail::segment_count;
 using detail::SegmentGrid;
 using detail::SegRef;
-using detail::segment_count;
 
 // Fraction of the clearance to other lines a vertex may move by (below one half, see header).
 constexpr double kClearanceShare = 0.45;
 
 struct Tolerances {
-  double sigma_m;      // Gaussian smoothing
-  double cap_m;        // largest displacement allowed anywhere
-  double simplify_m;   // Douglas-Peucker tolerance
-  double reach_m;      // clearance is measured up to this distance
-  double self_gap_m;   // own segments nearer than this along the line are neighbours, not obstacles
+  double sigma_m;     // Gaussian smoothing
+  double cap_m;       // largest displacement allowed anywhere
+  double simplify_m;  // Douglas-Peucker tolerance
+  double reach_m;     // clearance is measured up to this distance
+  double self_gap_m;  // own segments nearer than this along the line are neighbours, not obstacles
 };
 
 // Runs f(i) for i in [0, n) on two threads (the machine's budget for one sheet).
@@ -280,6 +281,10 @@ PrepareStats prepare_for_print(std::vector<ContourLine>& lines, const ContourPar
     for (int round = 0; round < 8; ++round) {
       auto crossings = find_crossings(lines);
       if (crossings.empty()) break;
+      long self = std::count_if(crossings.begin(), crossings.end(),
+                                [](const Crossing& c) { return c.a == c.b; });
+      log::debug("contours: round {}: {} crossings after smoothing ({} of a line with itself)",
+                 round, crossings.size(), self);
       for (const auto& c : crossings) {
         for (std::size_t i : {c.a, c.b}) {
           if (!result[i].empty()) {

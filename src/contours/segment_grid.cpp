@@ -24,7 +24,9 @@ bool on_segment(Point a, Point b, Point p) {
          p.y <= std::max(a.y, b.y);
 }
 
-Box segment_box(Point a, Point b) { return Box::of(a.x, a.y, b.x, b.y); }
+Box segment_box(Point a, Point b) {
+  return Box::of(a.x, a.y, b.x, b.y);
+}
 
 }  // namespace
 

@@ -18,7 +18,9 @@ inline std::size_t segment_count(const ContourLine& l) {
   if (l.ground.size() < 2) return 0;
   return l.closed ? l.ground.size() : l.ground.size() - 1;
 }
-inline Point seg_a(const ContourLine& l, std::size_t s) { return l.ground[s]; }
+inline Point seg_a(const ContourLine& l, std::size_t s) {
+  return l.ground[s];
+}
 inline Point seg_b(const ContourLine& l, std::size_t s) {
   return l.ground[(s + 1) % l.ground.size()];
 }

@@ -14,8 +14,8 @@ namespace {
 // formulation): cells join the components of their higher neighbours; where two components
 // meet, the one with the lower peak ends, its prominence being its peak minus the col's
 // elevation. `sign` = -1 sweeps the inverted surface (depth of depressions).
-std::vector<SpotHeight> prominent_cells(const terrain::Dem& dem, double min_prominence,
-                                        double sign, SpotHeight::Kind kind) {
+std::vector<SpotHeight> prominent_cells(const terrain::Dem& dem, double min_prominence, double sign,
+                                        SpotHeight::Kind kind) {
   const int w = dem.width(), h = dem.height();
   const std::size_t n = static_cast<std::size_t>(w) * h;
   std::vector<std::uint32_t> order;
@@ -94,7 +94,8 @@ std::string elevation_text(double elevation_m, double round_m, const std::string
   if (!(round_m > 0)) round_m = 1;
   double v = std::round(elevation_m / round_m) * round_m;
   int decimals = 0;
-  while (decimals < 3 && std::abs(v * std::pow(10, decimals) - std::round(v * std::pow(10, decimals))) > 1e-6)
+  while (decimals < 3 &&
+         std::abs(v * std::pow(10, decimals) - std::round(v * std::pow(10, decimals))) > 1e-6)
     ++decimals;
   std::string value = fmt::format("{:.{}f}", v, decimals);
   if (value == "-0") value = "0";

@@ -39,9 +39,8 @@ RingSet ring_set(const std::vector<std::vector<Polyline>>& polygons) {
 bool inside_water(Point p, const RingSet& rs, const detail::SegmentGrid& grid, double max_x) {
   std::vector<SegRef> hits;
   grid.query(Box::of(p.x, p.y, max_x, p.y), [&](SegRef r) { hits.push_back(r); });
-  std::sort(hits.begin(), hits.end(), [](SegRef a, SegRef b) {
-    return a.line != b.line ? a.line < b.line : a.seg < b.seg;
-  });
+  std::sort(hits.begin(), hits.end(),
+            [](SegRef a, SegRef b) { return a.line != b.line ? a.line < b.line : a.seg < b.seg; });
   hits.erase(std::unique(hits.begin(), hits.end(),
                          [](SegRef a, SegRef b) { return a.line == b.line && a.seg == b.seg; }),
              hits.end());
@@ -108,7 +107,8 @@ void clip_out_polygons(std::vector<ContourLine>& lines,
       Point a = path[i], b = path[i + 1];
       auto ts = split_params(a, b, rs, grid);
       for (std::size_t k = 0; k + 1 < ts.size(); ++k) {
-        if (ts.size() > 2) wet = inside_water(a + (b - a) * ((ts[k] + ts[k + 1]) / 2), rs, grid, water.max_x);
+        if (ts.size() > 2)
+          wet = inside_water(a + (b - a) * ((ts[k] + ts[k + 1]) / 2), rs, grid, water.max_x);
         Point q0 = a + (b - a) * ts[k], q1 = a + (b - a) * ts[k + 1];
         if (wet) {
           any_cut = true;

@@ -36,12 +36,12 @@ double delta_e76(const Lab& p, const Lab& q) {
 
 Colour simulate(const Colour& srgb, Deficiency deficiency) {
   // Machado, Oliveira and Fernandes (2009), Table 1, severity 1.0, for linear RGB.
-  static const double kProtan[9] = {0.152286, 1.052583, -0.204868, 0.114503, 0.786281,
+  static const double kProtan[9] = {0.152286, 1.052583,  -0.204868, 0.114503, 0.786281,
                                     0.099216, -0.003882, -0.048116, 1.051998};
-  static const double kDeutan[9] = {0.367322, 0.860646, -0.227968, 0.280085, 0.672501,
-                                    0.047413, -0.011820, 0.042940, 0.968881};
+  static const double kDeutan[9] = {0.367322, 0.860646,  -0.227968, 0.280085, 0.672501,
+                                    0.047413, -0.011820, 0.042940,  0.968881};
   static const double kTritan[9] = {1.255528, -0.076749, -0.178779, -0.078411, 0.930809,
-                                    0.147602, 0.004733, 0.691367, 0.303900};
+                                    0.147602, 0.004733,  0.691367,  0.303900};
   const double* m = deficiency == Deficiency::protanopia     ? kProtan
                     : deficiency == Deficiency::deuteranopia ? kDeutan
                                                              : kTritan;

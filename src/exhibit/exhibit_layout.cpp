@@ -1,11 +1,10 @@
 #include "sheetmill/exhibit/exhibit_layout.hpp"
 
+#include <fmt/format.h>
 #include <ogr_spatialref.h>
 
 #include <algorithm>
 #include <cmath>
-
-#include <fmt/format.h>
 
 #include "sheetmill/core/error.hpp"
 #include "sheetmill/core/gdal_env.hpp"
@@ -77,8 +76,8 @@ ExhibitLayout compute_exhibit_layout(const ExhibitProject& project) {
   const double avail_w = W - 2 * m, avail_h = map_bottom - map_top;
 
   // Scale: the project's, or the tidy scale at which the extent fits.
-  const double exact = 1000.0 * std::max(project.extent.width() / avail_w,
-                                         project.extent.height() / avail_h);
+  const double exact =
+      1000.0 * std::max(project.extent.width() / avail_w, project.extent.height() / avail_h);
   double scale = project.scale ? *project.scale : tidy_scale(exact);
   if (scale < exact * (1 - 1e-9)) {
     throw_input_error(SourceLocation{project.file.string(), 0, 0, "scale"},
@@ -89,10 +88,12 @@ ExhibitLayout compute_exhibit_layout(const ExhibitProject& project) {
   MapFrame& f = L.frame;
   set_crs(f, project);
   f.scale_denominator = scale;
-  const double gw = avail_w * scale / 1000.0, gh = avail_h * scale / 1000.0;
-  const Point c = project.extent.centre();
-  f.ground = Box::of(c.x - gw / 2, c.y - gh / 2, c.x + gw / 2, c.y + gh / 2);
-  f.page_origin_mm = {m, map_top};
+  // The frame is the extent itself at that scale, centred in the space for the map: no relief
+  // is asked for beyond what the project chose to show.
+  const double w_mm = project.extent.width() * 1000.0 / scale;
+  const double h_mm = project.extent.height() * 1000.0 / scale;
+  f.ground = project.extent;
+  f.page_origin_mm = {m + (avail_w - w_mm) / 2, map_top + (avail_h - h_mm) / 2};
   f.neatline = {{f.ground.min_x, f.ground.min_y},
                 {f.ground.max_x, f.ground.min_y},
                 {f.ground.max_x, f.ground.max_y},

@@ -68,14 +68,16 @@ void read_paper(const ConfigNode& n, ExhibitProject& p) {
     size.fail("paper larger than 200 in on a side, the PDF page limit");
   }
   p.paper = size.as_string();
-  if (auto o = n.find("orientation")) p.landscape = o->as_choice({"portrait", "landscape"}) == "landscape";
+  if (auto o = n.find("orientation"))
+    p.landscape = o->as_choice({"portrait", "landscape"}) == "landscape";
 }
 
 terrain::TintRamp stops_of(const ConfigNode& n) {
   terrain::TintRamp ramp;
   for (const ConfigNode& item : n.items()) {
     item.expect_keys({"elevation", "colour"});
-    ramp.stops.emplace_back(item.at("elevation").as_ground_length_m(), colour_of(item.at("colour")));
+    ramp.stops.emplace_back(item.at("elevation").as_ground_length_m(),
+                            colour_of(item.at("colour")));
   }
   try {
     terrain::validate_ramp(ramp, n.path());
@@ -192,7 +194,8 @@ ExhibitProject read(const ConfigNode& root) {
   read_paper(root.at("paper"), p);
   const ConfigNode extent = root.at("extent");
   auto v = extent.as_numbers(4);
-  if (v[2] <= v[0] || v[3] <= v[1]) extent.fail_expected("[min_e, min_n, max_e, max_n] with max > min");
+  if (v[2] <= v[0] || v[3] <= v[1])
+    extent.fail_expected("[min_e, min_n, max_e, max_n] with max > min");
   p.extent = Box::of(v[0], v[1], v[2], v[3]);
   if (auto s = root.find("scale")) {
     p.scale = s->as_number();

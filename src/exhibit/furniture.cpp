@@ -1,10 +1,10 @@
 #include "sheetmill/exhibit/furniture.hpp"
 
+#include <fmt/format.h>
+
 #include <algorithm>
 #include <cmath>
 #include <sstream>
-
-#include <fmt/format.h>
 
 #include "exhibit/text_helpers.hpp"
 #include "sheetmill/core/handles.hpp"
@@ -20,15 +20,17 @@ namespace {
 constexpr Colour kInk{0.1, 0.1, 0.1, 1};
 constexpr Colour kAccent{0.62, 0.09, 0.09, 1};
 
-double mm(double pt) { return pt * kMmPerPt; }
+double mm(double pt) {
+  return pt * kMmPerPt;
+}
 
 std::string elevation_label(double z) {
   return std::abs(z - std::round(z)) < 1e-6 ? fmt::format("{:.0f}", z) : fmt::format("{:g}", z);
 }
 }  // namespace
 
-std::vector<std::string> wrap_text(text::FontCache& fonts, const text::FontKey& key,
-                                   double size_pt, const std::string& s, double width_mm) {
+std::vector<std::string> wrap_text(text::FontCache& fonts, const text::FontKey& key, double size_pt,
+                                   const std::string& s, double width_mm) {
   std::vector<std::string> lines;
   std::istringstream words(s);
   std::string word, line;
@@ -76,8 +78,8 @@ ColourBarReport draw_colour_bar(cairo_t* cr, const Box& box, const terrain::Tint
            Align::left, kInk);
   const double z0 = ramp.stops.front().first, z1 = ramp.stops.back().first;
   // Half a label's width of room at each end so the end labels stay inside the box.
-  const double pad = text::shape(fonts, detail::regular(), type.body_pt, elevation_label(z1))
-                         .width_mm / 2 + 1;
+  const double pad =
+      text::shape(fonts, detail::regular(), type.body_pt, elevation_label(z1)).width_mm / 2 + 1;
   const double x0 = box.min_x + pad, x1 = box.max_x - pad;
   rep.bar_top_mm = y + mm(type.heading_pt) * 0.6;
   rep.bar_bottom_mm = rep.bar_top_mm + mm(type.body_pt) * 2.5;
@@ -144,8 +146,8 @@ ColourBarReport draw_colour_bar(cairo_t* cr, const Box& box, const terrain::Tint
   return rep;
 }
 
-void draw_notes(cairo_t* cr, const Box& box, const ExhibitProject& project,
-                const TypeScale& type, text::FontCache& fonts) {
+void draw_notes(cairo_t* cr, const Box& box, const ExhibitProject& project, const TypeScale& type,
+                text::FontCache& fonts) {
   double y = box.min_y;
   const double w = box.width();
   auto line_at = [&](const text::FontKey& key, double size_pt, const std::string& s,
@@ -165,7 +167,8 @@ void draw_notes(cairo_t* cr, const Box& box, const ExhibitProject& project,
     cairo_save(cr);
     cairo_set_source_rgb(cr, a.colour.r, a.colour.g, a.colour.b);
     cairo_set_line_width(cr, a.width_mm);
-    if (!a.dash_mm.empty()) cairo_set_dash(cr, a.dash_mm.data(), static_cast<int>(a.dash_mm.size()), 0);
+    if (!a.dash_mm.empty())
+      cairo_set_dash(cr, a.dash_mm.data(), static_cast<int>(a.dash_mm.size()), 0);
     cairo_move_to(cr, box.min_x, y - mm(type.body_pt) * 0.35);
     cairo_line_to(cr, box.min_x + sw, y - mm(type.body_pt) * 0.35);
     cairo_stroke(cr);

@@ -29,8 +29,9 @@ void draw_inset_map(cairo_t* cr, const Box& box, const ExhibitProject& project,
   map = Box::of(map.min_x, map.min_y, map.min_x + w, map.min_y + h);
   const double k = 3.0;
   const Point c = frame.ground.centre();
-  const Box ground = Box::of(c.x - k * frame.ground.width() / 2, c.y - k * frame.ground.height() / 2,
-                             c.x + k * frame.ground.width() / 2, c.y + k * frame.ground.height() / 2);
+  const Box ground =
+      Box::of(c.x - k * frame.ground.width() / 2, c.y - k * frame.ground.height() / 2,
+              c.x + k * frame.ground.width() / 2, c.y + k * frame.ground.height() / 2);
   // About 100 cells per inch on paper: plenty for an overview, a few hundred kilobytes.
   RasterGrid g;
   g.width = std::max(8, static_cast<int>(w / kMmPerInch * 100));

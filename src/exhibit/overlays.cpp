@@ -31,7 +31,8 @@ features::ReadRequest request_for(const MapFrame& frame, std::vector<std::string
   features::ReadRequest r;
   r.sheet_crs_wkt = frame.crs_wkt;
   // A little beyond the frame so outlines do not end at the neatline with a cap.
-  r.clip_ground = frame.ground.expanded(0.01 * std::max(frame.ground.width(), frame.ground.height()));
+  r.clip_ground =
+      frame.ground.expanded(0.01 * std::max(frame.ground.width(), frame.ground.height()));
   r.fields = std::move(fields);
   return r;
 }
@@ -46,28 +47,31 @@ Polyline to_page(const MapFrame& frame, const Polyline& line) {
 std::vector<PageArea> read_areas(const LayerRef& ref, const std::string& name,
                                  const MapFrame& frame) {
   std::vector<PageArea> out;
-  features::read_features(source_of(ref, name), request_for(frame), [&](const features::Feature& f) {
-    for (const features::Polygon& poly : f.polygons) {
-      PageArea a;
-      a.rings.push_back(to_page(frame, poly.outer));
-      for (const Polyline& h : poly.holes) a.rings.push_back(to_page(frame, h));
-      out.push_back(std::move(a));
-    }
-  });
+  features::read_features(source_of(ref, name), request_for(frame),
+                          [&](const features::Feature& f) {
+                            for (const features::Polygon& poly : f.polygons) {
+                              PageArea a;
+                              a.rings.push_back(to_page(frame, poly.outer));
+                              for (const Polyline& h : poly.holes)
+                                a.rings.push_back(to_page(frame, h));
+                              out.push_back(std::move(a));
+                            }
+                          });
   return out;
 }
 
 std::vector<Polyline> read_lines(const LayerRef& ref, const std::string& name,
                                  const MapFrame& frame) {
   std::vector<Polyline> out;
-  features::read_features(source_of(ref, name), request_for(frame), [&](const features::Feature& f) {
-    for (const Polyline& l : f.lines) out.push_back(to_page(frame, l));
-    for (const features::Polygon& poly : f.polygons) {  // an area's outline as a line
-      Polyline ring = to_page(frame, poly.outer);
-      if (!ring.empty()) ring.push_back(ring.front());
-      out.push_back(std::move(ring));
-    }
-  });
+  features::read_features(
+      source_of(ref, name), request_for(frame), [&](const features::Feature& f) {
+        for (const Polyline& l : f.lines) out.push_back(to_page(frame, l));
+        for (const features::Polygon& poly : f.polygons) {  // an area's outline as a line
+          Polyline ring = to_page(frame, poly.outer);
+          if (!ring.empty()) ring.push_back(ring.front());
+          out.push_back(std::move(ring));
+        }
+      });
   return out;
 }
 
@@ -101,10 +105,12 @@ void rings_of(const OGRGeometry* g, std::vector<PageArea>& out) {
 
 // The frame minus the union of the focus areas, by GEOS through OGR. Without GEOS the veil is
 // the frame with the areas' rings cut out by the even-odd rule (exact unless areas overlap).
-std::vector<PageArea> veil_of(const MapFrame& frame, const std::vector<std::vector<PageArea>>& areas,
+std::vector<PageArea> veil_of(const MapFrame& frame,
+                              const std::vector<std::vector<PageArea>>& areas,
                               const ExhibitProject& project) {
   const Box b = frame.page_box_mm();
-  PageArea frame_area{{{{b.min_x, b.min_y}, {b.max_x, b.min_y}, {b.max_x, b.max_y}, {b.min_x, b.max_y}}}};
+  PageArea frame_area{
+      {{{b.min_x, b.min_y}, {b.max_x, b.min_y}, {b.max_x, b.max_y}, {b.min_x, b.max_y}}}};
   std::vector<PageArea> out;
   OGRMultiPolygon focus;
   for (std::size_t i = 0; i < areas.size(); ++i) {
@@ -136,8 +142,10 @@ std::vector<PageArea> veil_of(const MapFrame& frame, const std::vector<std::vect
 
 OverlayData read_overlays(const ExhibitProject& project, const MapFrame& frame) {
   OverlayData d;
-  if (project.context.water_areas) d.water_areas = read_areas(*project.context.water_areas, "water_areas", frame);
-  if (project.context.water_lines) d.water_lines = read_lines(*project.context.water_lines, "water_lines", frame);
+  if (project.context.water_areas)
+    d.water_areas = read_areas(*project.context.water_areas, "water_areas", frame);
+  if (project.context.water_lines)
+    d.water_lines = read_lines(*project.context.water_lines, "water_lines", frame);
   if (project.context.roads) d.roads = read_lines(*project.context.roads, "roads", frame);
   for (std::size_t i = 0; i < project.areas.size(); ++i) {
     const AreaOverlay& area = project.areas[i];
@@ -162,16 +170,16 @@ OverlayData read_overlays(const ExhibitProject& project, const MapFrame& frame) 
                             [&](const features::Feature& f) {
                               const std::string* name = f.value(0);
                               if (!name || f.points.empty()) return;
-                              if (!pc.only.empty() &&
-                                  std::find(pc.only.begin(), pc.only.end(), *name) == pc.only.end()) {
+                              if (!pc.only.empty() && std::find(pc.only.begin(), pc.only.end(),
+                                                                *name) == pc.only.end()) {
                                 return;
                               }
                               const Point at = frame.to_page(f.points.front());
                               if (frame.page_box_mm().contains(at)) d.places.push_back({*name, at});
                             });
     if (!pc.only.empty() && d.places.size() < pc.only.size()) {
-      log::warn("{}: {} of the {} places to call out were not found inside the frame",
-                pc.data.path, pc.only.size() - d.places.size(), pc.only.size());
+      log::warn("{}: {} of the {} places to call out were not found inside the frame", pc.data.path,
+                pc.only.size() - d.places.size(), pc.only.size());
     }
   }
   return d;
@@ -216,8 +224,8 @@ CalloutReport draw_callouts(cairo_t* cr, const std::vector<Place>& places, const
   const double f = type.factor;
   const double dot_r = 1.6 * f;
   for (const Place& p : places) {
-    index.insert(text::box_quad(Box::of(p.at_mm.x - dot_r, p.at_mm.y - dot_r, p.at_mm.x + dot_r,
-                                        p.at_mm.y + dot_r)));
+    index.insert(text::box_quad(
+        Box::of(p.at_mm.x - dot_r, p.at_mm.y - dot_r, p.at_mm.x + dot_r, p.at_mm.y + dot_r)));
   }
   const double pad = 0.35 * type.body_pt * kMmPerPt;
   for (const Place& p : places) {
@@ -226,12 +234,13 @@ CalloutReport draw_callouts(cairo_t* cr, const std::vector<Place>& places, const
     const double d = 9 * f;  // leader length
     // Eight directions, preferring up-right then the other diagonals (common practice: names
     // to the upper right of their point).
-    static const double dirs[8][2] = {{1, -1}, {-1, -1}, {1, 1}, {-1, 1},
+    static const double dirs[8][2] = {{1, -1}, {-1, -1}, {1, 1},  {-1, 1},
                                       {1, 0},  {-1, 0},  {0, -1}, {0, 1}};
     Box chosen;
     bool free = false;
     for (const auto& dir : dirs) {
-      const double ux = dir[0] / std::hypot(dir[0], dir[1]), uy = dir[1] / std::hypot(dir[0], dir[1]);
+      const double ux = dir[0] / std::hypot(dir[0], dir[1]),
+                   uy = dir[1] / std::hypot(dir[0], dir[1]);
       const Point end{p.at_mm.x + ux * d, p.at_mm.y + uy * d};
       const double x0 = dir[0] > 0 ? end.x : dir[0] < 0 ? end.x - bw : end.x - bw / 2;
       const double y0 = dir[1] > 0 ? end.y : dir[1] < 0 ? end.y - bh : end.y - bh / 2;

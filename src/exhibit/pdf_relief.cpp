@@ -4,17 +4,16 @@
 #include <gdal.h>
 // qpdf 11: use std::shared_ptr throughout, no PointerHolder.
 #define POINTERHOLDER_TRANSITION 4
+#include <fmt/format.h>
+
+#include <array>
+#include <atomic>
+#include <map>
 #include <qpdf/Buffer.hh>
 #include <qpdf/Pipeline.hh>
 #include <qpdf/QPDF.hh>
 #include <qpdf/QPDFObjectHandle.hh>
 #include <qpdf/QPDFWriter.hh>
-
-#include <array>
-#include <atomic>
-#include <map>
-
-#include <fmt/format.h>
 
 #include "sheetmill/core/error.hpp"
 #include "sheetmill/core/gdal_env.hpp"
@@ -38,7 +37,8 @@ CairoSurfacePtr placeholder(std::size_t index) {
   for (int y = 0; y < kTagH; ++y) {
     auto* row = reinterpret_cast<std::uint32_t*>(data + y * stride);
     for (int x = 0; x < kTagW; ++x) {
-      std::uint32_t v = (std::uint32_t{kMagic[0]} << 16) | (std::uint32_t{kMagic[1]} << 8) | kMagic[2];
+      std::uint32_t v =
+          (std::uint32_t{kMagic[0]} << 16) | (std::uint32_t{kMagic[1]} << 8) | kMagic[2];
       if (y == 0 && x == kTagW - 1) v = (0x11u << 16) | static_cast<std::uint32_t>(index & 0xffff);
       row[x] = v;
     }
@@ -76,17 +76,16 @@ std::string encode_jpeg(const std::vector<std::uint8_t>& rgb, int width, int row
   DatasetPtr src_owner(GDALDataset::FromHandle(src));
   // Pixel-interleaved RGB straight from our buffer: band stride 1, pixel stride 3.
   int bands[3] = {1, 2, 3};
-  if (GDALDatasetRasterIO(src, GF_Write, 0, 0, width, rows,
-                          const_cast<std::uint8_t*>(rgb.data()), width, rows, GDT_Byte, 3, bands,
-                          3, 3L * width, 1) != CE_None) {
+  if (GDALDatasetRasterIO(src, GF_Write, 0, 0, width, rows, const_cast<std::uint8_t*>(rgb.data()),
+                          width, rows, GDT_Byte, 3, bands, 3, 3L * width, 1) != CE_None) {
     throw_internal_error("relief strip: " + errors.last_failure());
   }
   const std::string path = fmt::format("/vsimem/sheetmill-exhibit-strip-{}-{}.jpg",
                                        reinterpret_cast<std::uintptr_t>(&rgb), index);
   const std::string q = fmt::format("QUALITY={}", quality);
   const char* options[] = {q.c_str(), nullptr};
-  GDALDatasetH out = GDALCreateCopy(jpeg, path.c_str(), src, FALSE, const_cast<char**>(options),
-                                    nullptr, nullptr);
+  GDALDatasetH out =
+      GDALCreateCopy(jpeg, path.c_str(), src, FALSE, const_cast<char**>(options), nullptr, nullptr);
   if (!out) throw_internal_error("relief strip JPEG: " + errors.last_failure());
   GDALClose(out);
   vsi_l_offset size = 0;
@@ -111,7 +110,8 @@ class StripProvider : public QPDFObjectHandle::StreamDataProvider {
     const std::size_t index = it->second;
     std::vector<std::uint8_t> rgb = render_strip_rgb(plan_, index);
     if (compression_ == ReliefCompression::jpeg) {
-      std::string jpg = encode_jpeg(rgb, plan_.grid.width, plan_.strips[index].rows, quality_, index);
+      std::string jpg =
+          encode_jpeg(rgb, plan_.grid.width, plan_.strips[index].rows, quality_, index);
       std::vector<std::uint8_t>().swap(rgb);
       pipeline->write(reinterpret_cast<const unsigned char*>(jpg.data()), jpg.size());
     } else {
@@ -177,13 +177,12 @@ StreamedReliefReport stream_relief_into_pdf(const std::filesystem::path& cairo_p
       seen[static_cast<std::size_t>(index)] = true;
       provider->add(obj.getObjGen(), static_cast<std::size_t>(index));
       const bool jpeg = compression == ReliefCompression::jpeg;
-      obj.replaceStreamData(provider,
-                            jpeg ? QPDFObjectHandle::newName("/DCTDecode")
-                                 : QPDFObjectHandle::newNull(),
-                            QPDFObjectHandle::newNull());
+      obj.replaceStreamData(
+          provider, jpeg ? QPDFObjectHandle::newName("/DCTDecode") : QPDFObjectHandle::newNull(),
+          QPDFObjectHandle::newNull());
       dict.replaceKey("/Width", QPDFObjectHandle::newInteger(plan.grid.width));
-      dict.replaceKey("/Height",
-                      QPDFObjectHandle::newInteger(plan.strips[static_cast<std::size_t>(index)].rows));
+      dict.replaceKey("/Height", QPDFObjectHandle::newInteger(
+                                     plan.strips[static_cast<std::size_t>(index)].rows));
       dict.replaceKey("/ColorSpace", QPDFObjectHandle::newName("/DeviceRGB"));
       dict.replaceKey("/BitsPerComponent", QPDFObjectHandle::newInteger(8));
       // Relief cells are samples of a continuous surface: let viewers interpolate when zoomed.

@@ -24,8 +24,7 @@ struct PngStripWriter::Impl {
     throw_internal_error(std::string("writing PNG: ") + what); \
   }
 
-PngStripWriter::PngStripWriter(const std::filesystem::path& path, int width, int height,
-                               double dpi)
+PngStripWriter::PngStripWriter(const std::filesystem::path& path, int width, int height, double dpi)
     : impl_(new Impl), width_(width), height_(height) {
   impl_->file = std::fopen(path.c_str(), "wb");
   if (!impl_->file) {

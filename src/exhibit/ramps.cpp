@@ -47,8 +47,8 @@ const ShippedRamp& shipped_ramp(const std::string& name) {
     if (r.name == name) return r;
     names += (names.empty() ? "" : ", ") + r.name;
   }
-  throw_input_error(std::string("ramp"), "unknown shipped ramp \"" + name + "\" (shipped: " +
-                                             names + ")");
+  throw_input_error(std::string("ramp"),
+                    "unknown shipped ramp \"" + name + "\" (shipped: " + names + ")");
 }
 
 Colour ramp_colour_at(const ShippedRamp& ramp, double t) {

@@ -33,9 +33,8 @@ ReliefPlan plan_relief(const ExhibitProject& project, const MapFrame& frame,
   p.tint = true;
   p.ramp = ramp;
   p.tint_strength = 1;
-  const int rows_per_strip =
-      static_cast<int>(std::clamp<long>(max_strip_pixels / std::max(1, plan.grid.width), 1,
-                                        std::numeric_limits<int>::max()));
+  const int rows_per_strip = static_cast<int>(std::clamp<long>(
+      max_strip_pixels / std::max(1, plan.grid.width), 1, std::numeric_limits<int>::max()));
   for (int row0 = 0; row0 < plan.grid.height; row0 += rows_per_strip) {
     plan.strips.push_back({row0, std::min(rows_per_strip, plan.grid.height - row0)});
   }
@@ -59,7 +58,8 @@ std::vector<std::uint8_t> render_strip_rgb(const ReliefPlan& plan, std::size_t i
     const std::uint32_t p = img.argb[i];
     const std::uint32_t inv = 255 - (p >> 24);
     rgb[3 * i] = static_cast<std::uint8_t>(std::min<std::uint32_t>(255, ((p >> 16) & 255) + inv));
-    rgb[3 * i + 1] = static_cast<std::uint8_t>(std::min<std::uint32_t>(255, ((p >> 8) & 255) + inv));
+    rgb[3 * i + 1] =
+        static_cast<std::uint8_t>(std::min<std::uint32_t>(255, ((p >> 8) & 255) + inv));
     rgb[3 * i + 2] = static_cast<std::uint8_t>(std::min<std::uint32_t>(255, (p & 255) + inv));
   }
   return rgb;

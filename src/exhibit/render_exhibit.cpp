@@ -7,6 +7,7 @@
 #include <cmath>
 #include <system_error>
 
+#include "exhibit/repeat_filter.hpp"
 #include "sheetmill/core/atomic_file.hpp"
 #include "sheetmill/core/error.hpp"
 #include "sheetmill/core/handles.hpp"
@@ -23,7 +24,8 @@ namespace sheetmill::exhibit {
 
 ExhibitFormat format_for_path(const std::filesystem::path& output) {
   std::string ext = output.extension().string();
-  std::transform(ext.begin(), ext.end(), ext.begin(), [](unsigned char c) { return std::tolower(c); });
+  std::transform(ext.begin(), ext.end(), ext.begin(),
+                 [](unsigned char c) { return std::tolower(c); });
   return ext == ".png" ? ExhibitFormat::png : ExhibitFormat::pdf;
 }
 
@@ -80,8 +82,8 @@ void write_pdf(const ExhibitProject& project, const ExhibitLayout& layout, const
     }
   } remove_cairo_file{cairo_file};
   {
-    CairoSurfacePtr surface(cairo_pdf_surface_create(cairo_file.c_str(), layout.page_w_mm * kPtPerMm,
-                                                     layout.page_h_mm * kPtPerMm));
+    CairoSurfacePtr surface(cairo_pdf_surface_create(
+        cairo_file.c_str(), layout.page_w_mm * kPtPerMm, layout.page_h_mm * kPtPerMm));
     check_cairo(cairo_surface_status(surface.get()), "creating the PDF");
     cairo_pdf_surface_set_metadata(surface.get(), CAIRO_PDF_METADATA_TITLE, project.title.c_str());
     cairo_pdf_surface_set_metadata(surface.get(), CAIRO_PDF_METADATA_SUBJECT,
@@ -97,9 +99,9 @@ void write_pdf(const ExhibitProject& project, const ExhibitLayout& layout, const
     cairo_surface_finish(surface.get());
     check_cairo(cairo_surface_status(surface.get()), "finishing the PDF");
   }
-  StreamedReliefReport rep = stream_relief_into_pdf(cairo_file, out.temp_path(), plan,
-                                                    project.relief.compression,
-                                                    project.relief.jpeg_quality);
+  detail::RepeatFilter once_per_warning;
+  StreamedReliefReport rep = stream_relief_into_pdf(
+      cairo_file, out.temp_path(), plan, project.relief.compression, project.relief.jpeg_quality);
   log::debug("relief: {} strips streamed into the PDF, {} renders", rep.strips_replaced,
              rep.strip_renders);
   out.commit();
@@ -128,6 +130,7 @@ void write_png(const ExhibitLayout& layout, const ReliefPlan& plan, const Compos
   const int h = static_cast<int>(std::lround(layout.page_h_mm * px_per_mm));
   const int band_rows = static_cast<int>(std::clamp<long>(max_pixels / std::max(1, w), 16, h));
   const Box& map = layout.map_box_mm;
+  detail::RepeatFilter once_per_warning;
   {
     PngStripWriter png(out.temp_path(), w, h, dpi);
     std::vector<std::uint8_t> row(static_cast<std::size_t>(w) * 3);
@@ -143,7 +146,8 @@ void write_png(const ExhibitLayout& layout, const ReliefPlan& plan, const Compos
         cairo_translate(cr.get(), 0, -b0 / px_per_mm);
         // The relief rows under this band only, read and shaded for it alone.
         const double y0 = b0 / px_per_mm, y1 = (b0 + rows) / px_per_mm;
-        const int r0 = std::max(0, static_cast<int>(std::floor((y0 - plan.origin_mm.y) / plan.px_mm)));
+        const int r0 =
+            std::max(0, static_cast<int>(std::floor((y0 - plan.origin_mm.y) / plan.px_mm)));
         const int r1 = std::min(plan.grid.height,
                                 static_cast<int>(std::ceil((y1 - plan.origin_mm.y) / plan.px_mm)));
         if (r1 > r0 && y1 > map.min_y && y0 < map.max_y) {

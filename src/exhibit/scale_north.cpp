@@ -1,10 +1,9 @@
 // Scale bar and north arrow of an exhibit (declared in furniture.hpp). Our own small versions:
 // the sheet stage's collar diagrams are designed for field sheets, not for reading across a room.
+#include <fmt/format.h>
 #include <ogr_spatialref.h>
 
 #include <cmath>
-
-#include <fmt/format.h>
 
 #include "exhibit/text_helpers.hpp"
 #include "sheetmill/core/gdal_env.hpp"
@@ -19,7 +18,9 @@ using detail::put_text;
 
 namespace {
 constexpr Colour kInk{0.1, 0.1, 0.1, 1};
-double mm(double pt) { return pt * kMmPerPt; }
+double mm(double pt) {
+  return pt * kMmPerPt;
+}
 
 // The largest number of the form {1, 2, 5} x 10^k not above x (Heckbert's 1990 nice numbers,
 // rounded down so the bar fits its box).
@@ -35,7 +36,8 @@ std::string distance_label(double m, bool km) {
 
 std::string grouped(double n) {
   std::string s = fmt::format("{:.0f}", n);
-  for (int i = static_cast<int>(s.size()) - 3; i > 0; i -= 3) s.insert(static_cast<std::size_t>(i), "\u2009");
+  for (int i = static_cast<int>(s.size()) - 3; i > 0; i -= 3)
+    s.insert(static_cast<std::size_t>(i), "\u2009");
   return s;
 }
 }  // namespace

@@ -12,8 +12,12 @@
 
 namespace sheetmill::exhibit::detail {
 
-inline text::FontKey regular() { return {"DejaVu Sans", 400, false}; }
-inline text::FontKey bold() { return {"DejaVu Sans", 700, false}; }
+inline text::FontKey regular() {
+  return {"DejaVu Sans", 400, false};
+}
+inline text::FontKey bold() {
+  return {"DejaVu Sans", 700, false};
+}
 
 enum class Align { left, centre, right };
 

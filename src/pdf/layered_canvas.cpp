@@ -128,11 +128,13 @@ void LayeredCanvas::finish_pdf(const std::filesystem::path& path, const GeoRegis
     check_cairo(cairo_surface_status(surface.get()), "creating the PDF");
     CairoPtr cr(cairo_create(surface.get()));
     cairo_scale(cr.get(), kPtPerMm, kPtPerMm);
-    if (impl_->groups.empty()) cairo_show_page(cr.get());
     for (const auto& g : impl_->groups) {
       replay(cr.get(), g.recording.get());
       cairo_show_page(cr.get());
     }
+    // One more, empty page: the composed page. Reusing a group's own page would make that
+    // group's form read the page's replaced contents (qpdf copies page contents lazily).
+    cairo_show_page(cr.get());
     check_cairo(cairo_status(cr.get()), "writing the PDF");
     cr.reset();
     cairo_surface_finish(surface.get());
@@ -147,7 +149,7 @@ void LayeredCanvas::finish_pdf(const std::filesystem::path& path, const GeoRegis
     QPDFPageDocumentHelper doc(pdf);
     std::vector<QPDFPageObjectHelper> all = doc.getAllPages();
     std::size_t n = impl_->groups.size();
-    if (n > 0 && all.size() != n) throw_internal_error("PDF page count differs from the groups");
+    if (all.size() != n + 1) throw_internal_error("PDF page count differs from the groups");
 
     auto xobjects = QPDFObjectHandle::newDictionary();
     auto properties = QPDFObjectHandle::newDictionary();
@@ -167,13 +169,13 @@ void LayeredCanvas::finish_pdf(const std::filesystem::path& path, const GeoRegis
       content += "/OC " + oc + " BDC " + fx + " Do EMC\n";
     }
 
-    QPDFObjectHandle page = all.front().getObjectHandle();
+    QPDFObjectHandle page = all.back().getObjectHandle();
     auto resources = QPDFObjectHandle::newDictionary();
     resources.replaceKey("/XObject", xobjects);
     resources.replaceKey("/Properties", properties);
     page.replaceKey("/Resources", resources);
     page.replaceKey("/Contents", QPDFObjectHandle::newStream(&pdf, content));
-    for (std::size_t i = 1; i < all.size(); ++i) doc.removePage(all[i]);
+    for (std::size_t i = 0; i < n; ++i) doc.removePage(all[i]);
 
     QPDFObjectHandle root = pdf.getRoot();
     if (n > 0) {
@@ -208,6 +210,9 @@ void LayeredCanvas::finish_pdf(const std::filesystem::path& path, const GeoRegis
     QPDFWriter writer(pdf, path.c_str());
     writer.setObjectStreamMode(qpdf_o_generate);
     writer.setCompressStreams(true);
+    // Cairo's streams are already compressed: pass them through instead of inflating and
+    // deflating the relief images again.
+    writer.setDecodeLevel(qpdf_dl_none);
     writer.setMinimumPDFVersion("1.7");
     writer.write();
   } catch (const Error&) {

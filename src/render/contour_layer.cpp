@@ -4,7 +4,9 @@
 
 #include "render/relief_layer.hpp"
 #include "sheetmill/contours/contour_labels.hpp"
+#include "sheetmill/contours/contour_layer.hpp"
 #include "sheetmill/contours/generate.hpp"
+#include "sheetmill/contours/water_clip.hpp"
 #include "sheetmill/contours/spot_heights.hpp"
 #include "sheetmill/core/log.hpp"
 
@@ -58,12 +60,20 @@ SheetContours build_contours(const project::Project& project, const style::Style
   }
   out.interval_m = params.interval_m;
 
-  if (have_dem && out.dem.valid_count() > 0) {
+  const bool dem_has_data = have_dem && out.dem.valid_count() > 0;
+  if (project.contours.from_layer) {
+    const project::Source& src = *project.contours.from_layer;
+    out.lines = contours::read_layer(src.path, src.layer, project.contours.elevation_field,
+                                     frame.ground.expanded(frame.metres_per_mm() * 5),
+                                     frame.crs_wkt, params, dem_has_data ? &out.dem : nullptr);
+  } else if (dem_has_data) {
     out.lines = contours::generate(out.dem, params);
   } else {
     return out;
   }
-  (void)water;
+  // Contours do not cross a lake surface.
+  contours::clip_out_polygons(out.lines, water);
+  if (!dem_has_data) return out;
   out.labels = contours::label_candidates(out.lines, out.dem, frame, cs, fonts);
   out.spots = contours::find_summits(out.dem, cs.spot_min_prominence_m);
   for (auto& c : contours::spot_label_candidates(out.spots, frame, cs, fonts)) {

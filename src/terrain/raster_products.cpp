@@ -1,5 +1,6 @@
 #include "sheetmill/terrain/raster_products.hpp"
 
+#include <cpl_conv.h>
 #include <cpl_string.h>
 
 #include <algorithm>
@@ -42,7 +43,7 @@ DatasetPtr create_output(const std::string& path, const DemSource& src, int band
   opts.SetNameValue("NUM_THREADS", "ALL_CPUS");
   opts.SetNameValue("BIGTIFF", "IF_SAFER");
   if (bands >= 3) opts.SetNameValue("PHOTOMETRIC", "RGB");
-  if (bands == 4) opts.SetNameValue("ALPHA", "UNASSOCIATED");
+  if (bands == 4) opts.SetNameValue("ALPHA", "YES");  // unassociated (straight) alpha
   GdalErrorScope errors;
   const RasterGrid& g = src.grid();
   DatasetPtr ds(gtiff->Create(path.c_str(), g.width, g.height, bands, type, opts.List()));
@@ -171,7 +172,15 @@ void write_tint_raster(const std::string& dem_path, const std::string& out_path,
   AtomicOutput out(out_path);
   const int bands = rgba ? 4 : 3;
   DatasetPtr ds = create_output(out.temp_path().string(), src, bands, GDT_Byte, options);
-  if (!rgba) ds->CreateMaskBand(GMF_PER_DATASET);
+  if (!rgba) {
+    // Inside the TIFF, not a side-car file (which the atomic rename would leave behind).
+    CPLConfigOptionSetter internal("GDAL_TIFF_INTERNAL_MASK", "YES", false);
+    if (ds->CreateMaskBand(GMF_PER_DATASET) != CE_None) {
+      throw_input_error(out_path, "cannot create the output's mask");
+    }
+  } else {
+    ds->GetRasterBand(4)->SetColorInterpretation(GCI_AlphaBand);
+  }
   const int w = src.grid().width;
   std::vector<std::uint8_t> planes[4];
   for_each_band(src, *ds, options, [&](const Dem& dem, int first, int count, int row0) {

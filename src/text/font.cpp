@@ -116,13 +116,26 @@ bool file_of(FcPattern* p, std::string& file, int& index) {
 
 using Key = std::tuple<std::string, int, bool>;
 
+struct FcCharSetDeleter {
+  void operator()(FcCharSet* c) const noexcept {
+    if (c) FcCharSetDestroy(c);
+  }
+};
+
+// A fallback face not loaded yet: where it is and which characters it has.
+struct Candidate {
+  std::string file;
+  int index = 0;
+  std::unique_ptr<FcCharSet, FcCharSetDeleter> charset;
+};
+
 }  // namespace
 
 struct FontCache::Impl {
   FtLibrary library;
   std::map<std::pair<std::string, int>, std::unique_ptr<LoadedFont>> by_file;
   std::map<Key, const Font*> primary;
-  std::map<Key, std::vector<const Font*>> fallbacks;
+  std::map<Key, std::vector<Candidate>> fallbacks;
 
   Impl() {
     FT_Library lib = nullptr;
@@ -163,24 +176,32 @@ const Font& FontCache::primary(const FontKey& key) {
   return font;
 }
 
-const std::vector<const Font*>& FontCache::fallbacks(const FontKey& key) {
+const Font* FontCache::fallback_for(const FontKey& key, char32_t codepoint) {
   Key k{key.family, key.weight, key.italic};
   auto it = impl_->fallbacks.find(k);
-  if (it != impl_->fallbacks.end()) return it->second;
-  std::vector<const Font*> list;
-  FcPatternPtr pat = make_pattern(key);
-  FcResult result;
-  FcFontSet* set = FcFontSort(fontconfig(), pat.get(), FcTrue, nullptr, &result);
-  if (set) {
-    // A handful of faces covers the scripts a sheet meets; loading all would be slow.
-    for (int i = 0; i < set->nfont && list.size() < 24; ++i) {
-      std::string file;
-      int index = 0;
-      if (file_of(set->fonts[i], file, index)) list.push_back(&impl_->load(file, index));
+  if (it == impl_->fallbacks.end()) {
+    // fontconfig's whole sorted list, with each face's character set; sorting is done once.
+    FcPatternPtr pat = make_pattern(key);
+    FcResult result;
+    FcFontSet* set = FcFontSort(fontconfig(), pat.get(), FcFalse, nullptr, &result);
+    std::vector<Candidate> list;
+    if (set) {
+      for (int i = 0; i < set->nfont; ++i) {
+        Candidate c;
+        FcCharSet* cs = nullptr;
+        if (!file_of(set->fonts[i], c.file, c.index)) continue;
+        if (FcPatternGetCharSet(set->fonts[i], FC_CHARSET, 0, &cs) != FcResultMatch) continue;
+        c.charset.reset(FcCharSetCopy(cs));
+        list.push_back(std::move(c));
+      }
+      FcFontSetDestroy(set);
     }
-    FcFontSetDestroy(set);
+    it = impl_->fallbacks.emplace(k, std::move(list)).first;
   }
-  return impl_->fallbacks[k] = std::move(list);
+  for (const Candidate& c : it->second) {
+    if (FcCharSetHasChar(c.charset.get(), codepoint)) return &impl_->load(c.file, c.index);
+  }
+  return nullptr;
 }
 
 }  // namespace sheetmill::text

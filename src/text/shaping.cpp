@@ -47,12 +47,7 @@ std::vector<Span> itemise(FontCache& fonts, const FontKey& key, std::string_view
     char32_t cp = next_codepoint(utf8, i);
     const Font* font = &primary;
     if (!is_neutral(cp) && !primary.has_glyph(cp)) {
-      for (const Font* f : fonts.fallbacks(key)) {
-        if (f->has_glyph(cp)) {
-          font = f;
-          break;
-        }
-      }
+      if (const Font* f = fonts.fallback_for(key, cp)) font = f;
     }
     if (!spans.empty() && (spans.back().font == font || is_neutral(cp))) {
       spans.back().end = static_cast<uint32_t>(i);

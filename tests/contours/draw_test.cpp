@@ -1,7 +1,6 @@
 // Drawing: depression ticks land on the downhill side, and lines break behind chosen labels.
 // Checked on the rendered pixels, not on our own geometry.
 #include <catch2/catch.hpp>
-
 #include <cmath>
 
 #include "contours/synthetic_dem.hpp"
@@ -106,8 +105,8 @@ TEST_CASE("lines break behind a chosen label footprint", "[contours]") {
   cand.chosen = 0;
   Canvas canvas(frame.width_mm(), frame.height_mm());
   draw_contours(canvas.cr.get(), lines, {cand}, frame, plain_style());
-  CHECK(canvas.ink({50, 30}) > 64);  // line above the gap
-  CHECK(canvas.ink({50, 50}) == 0);  // gap
-  CHECK(canvas.ink({50, 70}) > 64);  // line below
-  CHECK(canvas.ink({100, 50}) > 64); // the next line is untouched
+  CHECK(canvas.ink({50, 30}) > 64);   // line above the gap
+  CHECK(canvas.ink({50, 50}) == 0);   // gap
+  CHECK(canvas.ink({50, 70}) > 64);   // line below
+  CHECK(canvas.ink({100, 50}) > 64);  // the next line is untouched
 }

@@ -1,12 +1,12 @@
 // Contour generation against analytic surfaces: a cone and a paraboloid have circular contours
 // whose radius follows from the formula.
-#include <catch2/catch.hpp>
+#include "sheetmill/contours/generate.hpp"
 
+#include <catch2/catch.hpp>
 #include <cmath>
 #include <set>
 
 #include "contours/synthetic_dem.hpp"
-#include "sheetmill/contours/generate.hpp"
 #include "sheetmill/contours/prepare.hpp"
 #include "sheetmill/core/error.hpp"
 
@@ -37,8 +37,9 @@ TEST_CASE("cone: circles of radius (H - z) / k, right levels, every fifth an ind
   // only, so half a cell is the tolerance (brief).
   const double cell = 10, H = 500, k = 0.5;
   const Point c{2000, 2000};
-  auto dem = synthetic::make_dem(400, 400, cell, 0, 4000,
-                            [&](double x, double y) { return H - k * distance({x, y}, c); });
+  auto dem = synthetic::make_dem(400, 400, cell, 0, 4000, [&](double x, double y) {
+    return H - k * distance({x, y}, c);
+  });
   ContourParams p;
   p.interval_m = 20;
   p.base_m = 0;

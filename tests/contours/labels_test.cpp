@@ -1,7 +1,6 @@
 // Contour value labels through the API: on index contours only, top of the figures uphill
 // (unless upright), never overlapping, spaced along the line, shaped text drawn as real text.
 #include <catch2/catch.hpp>
-
 #include <cmath>
 #include <cstdlib>
 
@@ -64,8 +63,8 @@ std::vector<Placed> place_all(ContourLabels& cl, const MapFrame& frame) {
 
 TEST_CASE("contour labels: index only, uphill, no overlaps, upright option", "[contours]") {
   Surface surf;
-  auto dem = synthetic::make_dem(400, 250, 20, 0, 5000,
-                            [&](double x, double y) { return surf.z(x, y); });
+  auto dem =
+      synthetic::make_dem(400, 250, 20, 0, 5000, [&](double x, double y) { return surf.z(x, y); });
   ContourParams p;
   p.interval_m = 10;
   p.scale_denominator = 25000;  // 8 km x 5 km -> 320 x 200 mm
@@ -87,8 +86,8 @@ TEST_CASE("contour labels: index only, uphill, no overlaps, upright option", "[c
       CHECK(lines[pl.geom.line].index);  // values on index contours only
       CHECK_FALSE(lines[pl.geom.line].supplementary);
       Point g = frame.to_ground(pl.geom.centre_mm);
-      Point grad = surf.gradient(g.x, g.y);   // analytic, ground (E, N)
-      Point uphill_page{grad.x, -grad.y};     // page y runs down
+      Point grad = surf.gradient(g.x, g.y);  // analytic, ground (E, N)
+      Point uphill_page{grad.x, -grad.y};    // page y runs down
       if (upright) {
         // Upright: the baseline runs left to right on the page (cos of the angle >= 0).
         CHECK(std::cos(pl.geom.angle_rad) >= -1e-9);
@@ -121,8 +120,8 @@ TEST_CASE("contour labels: index only, uphill, no overlaps, upright option", "[c
 
 TEST_CASE("a chosen label cuts its line and draws real text", "[contours]") {
   Surface surf;
-  auto dem = synthetic::make_dem(200, 150, 20, 0, 3000,
-                            [&](double x, double y) { return surf.z(x, y); });
+  auto dem =
+      synthetic::make_dem(200, 150, 20, 0, 3000, [&](double x, double y) { return surf.z(x, y); });
   ContourParams p;
   p.interval_m = 10;
   auto lines = generate(dem, p);

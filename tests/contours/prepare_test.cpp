@@ -1,14 +1,15 @@
 // Preparation for print: smoothing and generalisation never make two contours cross or touch,
 // cut the vertex count, and move lines by no more than the stated tolerance.
-#include <catch2/catch.hpp>
+#include "sheetmill/contours/prepare.hpp"
+
 #include <ogr_geometry.h>
 
+#include <catch2/catch.hpp>
 #include <cmath>
 #include <random>
 
 #include "contours/synthetic_dem.hpp"
 #include "sheetmill/contours/generate.hpp"
-#include "sheetmill/contours/prepare.hpp"
 
 using namespace sheetmill;
 using namespace sheetmill::contours;

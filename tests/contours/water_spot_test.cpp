@@ -1,8 +1,8 @@
 // Lakes cut contours (GEOS through OGR as the oracle); spot heights by prominence on a grid
 // whose answer follows from the definition by hand; elevation figures.
-#include <catch2/catch.hpp>
 #include <ogr_geometry.h>
 
+#include <catch2/catch.hpp>
 #include <cmath>
 
 #include "contours/synthetic_dem.hpp"
@@ -45,8 +45,9 @@ TEST_CASE("contours stop at a lake shore and keep around its island", "[contours
     return;
   }
   const Point c{1000, 1000};
-  auto dem = synthetic::make_dem(200, 200, 10, 0, 2000,
-                            [&](double x, double y) { return 400 - 0.3 * distance({x, y}, c); });
+  auto dem = synthetic::make_dem(200, 200, 10, 0, 2000, [&](double x, double y) {
+    return 400 - 0.3 * distance({x, y}, c);
+  });
   ContourParams p;
   p.interval_m = 10;
   auto lines = generate(dem, p);
@@ -108,7 +109,8 @@ TEST_CASE("elevation figures: rounded, no trailing zeros, template kept", "[cont
 
 TEST_CASE("supplied contour layers: elevation field required, lines read back", "[contours]") {
   test::TempDir tmp("layer");
-  auto dem = synthetic::make_dem(100, 100, 10, 0, 1000, [](double x, double y) { return x / 20 + y / 40; });
+  auto dem = synthetic::make_dem(100, 100, 10, 0, 1000,
+                                 [](double x, double y) { return x / 20 + y / 40; });
   ContourParams p;
   p.interval_m = 5;
   auto lines = generate(dem, p);
@@ -130,7 +132,8 @@ TEST_CASE("supplied contour layers: elevation field required, lines read back", 
   }
   // Real data: the Ordnance-style height contours of the plplot tile carry no height
   // attribute (tests/data/README.md), so asking for one is a clear error.
-  auto shp = test::open_data("libplplot-data", "usr/share/plplot5.15.0/ss/ss64ne_Height_Contours.shp");
+  auto shp =
+      test::open_data("libplplot-data", "usr/share/plplot5.15.0/ss/ss64ne_Height_Contours.shp");
   if (std::filesystem::exists(shp)) {
     CHECK_THROWS_WITH(read_layer(shp.string(), "", "height", {}, "", p),
                       Catch::Contains("no elevation field"));

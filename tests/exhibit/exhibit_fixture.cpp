@@ -1,5 +1,6 @@
 #include "exhibit_fixture.hpp"
 
+#include <fmt/format.h>
 #include <gdal.h>
 #include <ogr_srs_api.h>
 
@@ -9,8 +10,6 @@
 #include <sstream>
 #include <stdexcept>
 
-#include <fmt/format.h>
-
 #include "sheetmill/core/gdal_env.hpp"
 #include "support/test_env.hpp"
 
@@ -19,7 +18,8 @@ namespace sheetmill::exhibit_fixture {
 void write_plane_dem(const std::filesystem::path& path, double z0, double slope, double cell_m) {
   gdal_init();
   const double e = kE0 - 10000, n = kN0 + kHeightM + 10000;
-  const int w = static_cast<int>((kWidthM + 20000) / cell_m), h = static_cast<int>((kHeightM + 20000) / cell_m);
+  const int w = static_cast<int>((kWidthM + 20000) / cell_m),
+            h = static_cast<int>((kHeightM + 20000) / cell_m);
   GDALDriverH drv = GDALGetDriverByName("GTiff");
   GDALDatasetH ds = GDALCreate(drv, path.c_str(), w, h, 1, GDT_Float32, nullptr);
   if (!ds) throw std::runtime_error("cannot create " + path.string());
@@ -74,8 +74,8 @@ Rgb Raster::at(int x, int y) const {
 
 Raster rasterise(const std::filesystem::path& pdf, double dpi, const std::filesystem::path& dir) {
   const std::filesystem::path stem = dir / "page";
-  auto r = sheetmill::test::run_command({"pdftoppm", "-r", fmt::format("{}", dpi), "-singlefile",
-                                         pdf.string(), stem.string()});
+  auto r = sheetmill::test::run_command(
+      {"pdftoppm", "-r", fmt::format("{}", dpi), "-singlefile", pdf.string(), stem.string()});
   if (r.exit_code != 0) throw std::runtime_error("pdftoppm failed: " + r.err);
   std::ifstream in(stem.string() + ".ppm", std::ios::binary);
   std::string magic;
@@ -95,7 +95,8 @@ std::vector<Word> words_of(const std::filesystem::path& pdf) {
   std::vector<Word> out;
   static const std::regex word(
       R"re(<word xMin="([-0-9.]+)" yMin="([-0-9.]+)" xMax="([-0-9.]+)" yMax="([-0-9.]+)">([^<]*)</word>)re");
-  for (auto it = std::sregex_iterator(r.out.begin(), r.out.end(), word); it != std::sregex_iterator(); ++it) {
+  for (auto it = std::sregex_iterator(r.out.begin(), r.out.end(), word);
+       it != std::sregex_iterator(); ++it) {
     const auto& m = *it;
     out.push_back({m[5].str(), std::stod(m[1].str()), std::stod(m[2].str()), std::stod(m[3].str()),
                    std::stod(m[4].str())});

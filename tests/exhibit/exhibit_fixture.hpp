@@ -13,13 +13,14 @@ namespace sheetmill::exhibit_fixture {
 inline constexpr double kE0 = 470000, kN0 = 5190000, kWidthM = 12000, kHeightM = 9000;
 
 // A GeoTIFF plane z = z0 + slope * (E - kE0) over [kE0 - 10 km, kE0 + kWidthM + 10 km] x
-// [kN0 - 10 km, kN0 + kHeightM + 10 km] at `cell_m`, Float32, EPSG:32632 (wider than any test frame).
+// [kN0 - 10 km, kN0 + kHeightM + 10 km] at `cell_m`, Float32, EPSG:32632 (wider than any test
+// frame).
 void write_plane_dem(const std::filesystem::path& path, double z0, double slope, double cell_m);
 
 // Exhibit project text for `dem` on `paper`; `extra` is appended verbatim (more top-level keys),
 // `relief_extra` inside the relief section (indented by the caller with 2 spaces).
-std::string exhibit_yaml(const std::filesystem::path& dem, const std::string& paper,
-                         bool landscape, double exaggeration, const std::string& relief_extra = "",
+std::string exhibit_yaml(const std::filesystem::path& dem, const std::string& paper, bool landscape,
+                         double exaggeration, const std::string& relief_extra = "",
                          const std::string& extra = "");
 
 struct Rgb {

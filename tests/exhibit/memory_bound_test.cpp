@@ -1,12 +1,11 @@
 // An ARCH E exhibit with relief at 300 dpi renders within the memory bound stated in
 // bench/exhibit/README.md: the CLI runs as a child process and its peak resident set is read
 // with wait4()'s rusage. A memory bound, not a wall-time assertion.
-#include <catch2/catch.hpp>
-
 #include <spawn.h>
 #include <sys/resource.h>
 #include <sys/wait.h>
 
+#include <catch2/catch.hpp>
 #include <cstdio>
 
 #include "exhibit_fixture.hpp"
@@ -35,9 +34,9 @@ long peak_rss_mib(const std::vector<std::string>& argv, int& exit_code) {
 TEST_CASE("an ARCH E exhibit at 300 dpi stays within the memory bound", "[exhibit]") {
   sheetmill::test::TempDir dir("exhibit-mem");
   fx::write_plane_dem(dir / "dem.tif", 100, 0.05, 20);
-  sheetmill::test::write_text(dir / "x.yaml",
-                              fx::exhibit_yaml(dir / "dem.tif", "ARCH E", false, 2,
-                                               "  dpi: 300\n  compression: jpeg\n"));
+  sheetmill::test::write_text(
+      dir / "x.yaml",
+      fx::exhibit_yaml(dir / "dem.tif", "ARCH E", false, 2, "  dpi: 300\n  compression: jpeg\n"));
   int code = -1;
   const long mib = peak_rss_mib({sheetmill::test::sheetmill_exe().string(), "-q", "exhibit",
                                  (dir / "x.yaml").string(), "-o", (dir / "x.pdf").string()},
@@ -49,6 +48,6 @@ TEST_CASE("an ARCH E exhibit at 300 dpi stays within the memory bound", "[exhibi
   INFO("peak RSS " << mib << " MiB");
   CHECK(mib > 0);
   CHECK(mib < kBoundMib);
-  WARN("ARCH E at 300 dpi: peak RSS " << mib << " MiB, PDF "
-                                      << std::filesystem::file_size(dir / "x.pdf") / 1024 << " KiB");
+  WARN("ARCH E at 300 dpi: peak RSS "
+       << mib << " MiB, PDF " << std::filesystem::file_size(dir / "x.pdf") / 1024 << " KiB");
 }

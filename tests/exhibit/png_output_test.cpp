@@ -1,9 +1,8 @@
 // PNG output: written row by row (libpng), the same composition as the PDF. GDAL reads the PNG
 // as the oracle for its size and resolution; poppler rasterises the PDF to compare against.
-#include <catch2/catch.hpp>
-
 #include <gdal.h>
 
+#include <catch2/catch.hpp>
 #include <cmath>
 #include <cstdlib>
 
@@ -23,8 +22,8 @@ TEST_CASE("PNG output has the page's size at the chosen dpi and matches the PDF"
   fx::write_plane_dem(dir / "dem.tif", 100, 0.05, 50);
   const double dpi = 40;
   sheetmill::test::write_text(
-      dir / "x.yaml", fx::exhibit_yaml(dir / "dem.tif", "ARCH D", true, 2,
-                                       "  compression: lossless\n  dpi: 40\n"));
+      dir / "x.yaml",
+      fx::exhibit_yaml(dir / "dem.tif", "ARCH D", true, 2, "  compression: lossless\n  dpi: 40\n"));
   ExhibitProject p = load_exhibit_project(dir / "x.yaml");
   ExhibitOptions png;
   png.format = ExhibitFormat::png;

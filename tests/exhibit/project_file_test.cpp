@@ -1,12 +1,12 @@
 // The exhibit project file: located errors for bad input, and the layout it leads to.
 #include <catch2/catch.hpp>
-
 #include <cmath>
 
 #include "exhibit_fixture.hpp"
 #include "sheetmill/core/error.hpp"
 #include "sheetmill/exhibit/exhibit_layout.hpp"
 #include "sheetmill/exhibit/exhibit_project.hpp"
+#include "support/test_env.hpp"
 
 using namespace sheetmill;
 using namespace sheetmill::exhibit;
@@ -48,8 +48,8 @@ TEST_CASE("exhibit project errors name the file, line and key", "[exhibit]") {
 
 TEST_CASE("the layout shows the whole extent at an exact, tidy scale", "[exhibit]") {
   for (bool landscape : {false, true}) {
-    ExhibitProject p = parse_exhibit_project(fx::exhibit_yaml("dem.tif", "ARCH E", landscape, 1),
-                                             "ex.yaml");
+    ExhibitProject p =
+        parse_exhibit_project(fx::exhibit_yaml("dem.tif", "ARCH E", landscape, 1), "ex.yaml");
     ExhibitLayout L = compute_exhibit_layout(p);
     const MapFrame& f = L.frame;
     CHECK(f.ground.min_x <= p.extent.min_x);
@@ -71,4 +71,16 @@ TEST_CASE("the layout shows the whole extent at an exact, tidy scale", "[exhibit
   CHECK(tidy_scale(18234) == 19000);
   CHECK(tidy_scale(18000) == 18000);
   CHECK(tidy_scale(951) == 960);
+}
+
+TEST_CASE("the shipped demo exhibit project loads", "[exhibit]") {
+  ExhibitProject p =
+      load_exhibit_project(sheetmill::test::source_dir() / "demo_area" / "exhibit.yaml");
+  CHECK(p.relief.exaggeration == 2);
+  CHECK(p.areas.size() == 2);
+  CHECK(p.areas[0].ring.size() == 4);
+  CHECK(p.dim_outside == Approx(0.3));
+  ExhibitLayout L = compute_exhibit_layout(p);
+  CHECK(L.paper_name == "ARCH E");
+  CHECK(L.page_w_mm > L.page_h_mm);  // landscape
 }

@@ -1,6 +1,5 @@
 // Colour science and the shipped ramps. Reference values are named beside each check.
 #include <catch2/catch.hpp>
-
 #include <cmath>
 
 #include "sheetmill/core/error.hpp"

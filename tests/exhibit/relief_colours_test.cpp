@@ -2,9 +2,8 @@
 // the bar labels exactly the ramp's stops, the bar shows the ramp's colour at each label, the
 // map shows that colour where the ground is at that elevation, and relief strips join without
 // a seam. The DEM is a plane z = 100 m + 0.05 (E - E0), so every elevation's place is known.
-#include <catch2/catch.hpp>
-
 #include <algorithm>
+#include <catch2/catch.hpp>
 #include <cmath>
 #include <cstdlib>
 
@@ -22,7 +21,9 @@ namespace fx = sheetmill::exhibit_fixture;
 namespace {
 constexpr double kZ0 = 100, kSlope = 0.05;
 
-int px(double mm, double dpi) { return static_cast<int>(std::floor(mm / kMmPerInch * dpi)); }
+int px(double mm, double dpi) {
+  return static_cast<int>(std::floor(mm / kMmPerInch * dpi));
+}
 
 int max_channel_diff(const fx::Rgb& a, const Colour& c) {
   return std::max({std::abs(a.r - static_cast<int>(std::lround(c.r * 255))),
@@ -75,9 +76,10 @@ TEST_CASE("colour bar labels and colours match the ramp and the relief", "[exhib
     if (k == 0) x += 0.6;
     if (k + 1 == bar.values_m.size()) x -= 0.6;
     const double z_at_x = bar.values_m.front() + (x - bar.x_mm.front()) /
-                                                      (bar.x_mm.back() - bar.x_mm.front()) *
-                                                      (bar.values_m.back() - bar.values_m.front());
-    CHECK(max_channel_diff(page.at(px(x, dpi), px(y_bar, dpi)), terrain::tint_colour(ramp, z_at_x)) <= 4);
+                                                     (bar.x_mm.back() - bar.x_mm.front()) *
+                                                     (bar.values_m.back() - bar.values_m.front());
+    CHECK(max_channel_diff(page.at(px(x, dpi), px(y_bar, dpi)),
+                           terrain::tint_colour(ramp, z_at_x)) <= 4);
 
     const double e = fx::kE0 + (bar.values_m[k] - kZ0) / kSlope;
     const Point p = frame.to_page({e, frame.ground.centre().y});
@@ -95,9 +97,8 @@ TEST_CASE("relief strips join without a seam", "[exhibit]") {
   for (std::string compression : {"lossless", "jpeg"}) {
     INFO(compression);
     sheetmill::test::write_text(
-        dir / "x.yaml",
-        fx::exhibit_yaml(dir / "dem.tif", "ARCH D", false, 1,
-                         "  compression: " + compression + "\n  dpi: 60\n"));
+        dir / "x.yaml", fx::exhibit_yaml(dir / "dem.tif", "ARCH D", false, 1,
+                                         "  compression: " + compression + "\n  dpi: 60\n"));
     ExhibitOptions o;
     o.max_strip_pixels = 20000;  // many thin strips
     ExhibitReport rep = render_exhibit(load_exhibit_project(dir / "x.yaml"), dir / "x.pdf", o);
@@ -111,7 +112,8 @@ TEST_CASE("relief strips join without a seam", "[exhibit]") {
     for (double fx_ : {0.3, 0.5, 0.7}) {
       const int x = px(map.min_x + fx_ * map.width(), dpi);
       std::vector<int> g;
-      for (int y = px(map.min_y, dpi) + 3; y < px(map.max_y, dpi) - 3; ++y) g.push_back(page.at(x, y).g);
+      for (int y = px(map.min_y, dpi) + 3; y < px(map.max_y, dpi) - 3; ++y)
+        g.push_back(page.at(x, y).g);
       std::vector<int> sorted = g;
       std::nth_element(sorted.begin(), sorted.begin() + sorted.size() / 2, sorted.end());
       const int median = sorted[sorted.size() / 2];

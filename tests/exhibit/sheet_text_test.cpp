@@ -1,8 +1,7 @@
 // Text on the rendered exhibit, read back with poppler's pdftotext -bbox: type sizes follow the
 // paper-size rule, and the exaggeration note appears exactly when the exaggeration is not 1.
-#include <catch2/catch.hpp>
-
 #include <algorithm>
+#include <catch2/catch.hpp>
 #include <cmath>
 
 #include "exhibit_fixture.hpp"
@@ -20,10 +19,11 @@ namespace {
 
 std::filesystem::path render_pdf(const sheetmill::test::TempDir& dir, const std::string& paper,
                                  bool landscape, double exaggeration, const std::string& name) {
-  if (!std::filesystem::exists(dir / "dem.tif")) fx::write_plane_dem(dir / "dem.tif", 100, 0.05, 50);
-  sheetmill::test::write_text(dir / (name + ".yaml"),
-                              fx::exhibit_yaml(dir / "dem.tif", paper, landscape, exaggeration,
-                                               "  dpi: 20\n"));
+  if (!std::filesystem::exists(dir / "dem.tif"))
+    fx::write_plane_dem(dir / "dem.tif", 100, 0.05, 50);
+  sheetmill::test::write_text(
+      dir / (name + ".yaml"),
+      fx::exhibit_yaml(dir / "dem.tif", paper, landscape, exaggeration, "  dpi: 20\n"));
   render_exhibit(load_exhibit_project(dir / (name + ".yaml")), dir / (name + ".pdf"));
   return dir / (name + ".pdf");
 }
@@ -83,8 +83,8 @@ TEST_CASE("title and body sizes on the page follow the rule for each paper", "[e
     auto pdf = render_pdf(dir, c.paper, c.landscape, 1, "t" + std::to_string(&c - cases.data()));
     auto words = fx::words_of(pdf);
     TypeScale expected = type_scale_for(c.w_in * 25.4, c.h_in * 25.4);
-    const fx::Word* title = find_word(words, "Fenwick");       // the title's first word
-    const fx::Word* body = find_word(words, "illustration");   // the caution, body text
+    const fx::Word* title = find_word(words, "Fenwick");      // the title's first word
+    const fx::Word* body = find_word(words, "illustration");  // the caution, body text
     REQUIRE(title);
     REQUIRE(body);
     const double title_pt = (title->y_max - title->y_min) / k_bold;

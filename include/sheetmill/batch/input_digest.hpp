@@ -5,7 +5,8 @@
 //   files     the bytes of the project and style files (and other files they name)
 //   sheet     the sheet's index feature: ID, attributes, footprint
 //   source:*  each vector source, read with a spatial filter on the sheet's footprint grown by
-//             a margin: only the features that can appear on the sheet count
+//             a margin: only the features that can appear on the sheet count; the tile index
+//             itself is one (the neighbours' IDs and names appear in the collar)
 //   dem       the DEM's georeferencing and the values of the window under the footprint
 // Each part has its own digest (kept in the stamp, to say WHY a sheet was re-rendered); the
 // sheet's digest hashes the parts in name order. Memory is bounded by one DEM row and one

@@ -34,7 +34,8 @@ struct SheetOutcome {
   std::string id;
   std::string name;
   SheetStatus status = SheetStatus::failed;
-  double seconds = 0;  // wall time in the worker, digest included
+  double seconds = 0;      // wall time in the worker, digest included
+  double cpu_seconds = 0;  // user + system CPU time of the worker for this sheet
   std::vector<std::string> warnings;
   std::string error;   // failed: one line
   std::string reason;  // rendered: why ("new", "changed: source:roads", "forced")

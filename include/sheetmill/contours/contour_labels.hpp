@@ -28,10 +28,10 @@ inline constexpr const char* kSpotHeightLayer = "spot-heights";
 // Extra data about each placement, in the same order as the candidates and their placements
 // (for tests and for the render log): where the figures sit and which way they read.
 struct LabelGeometry {
-  std::size_t line = 0;        // index into the lines
-  Point centre_mm;             // page position of the figures' centre (on the line)
-  double angle_rad = 0;        // baseline direction, clockwise on the page
-  Point up_mm;                 // unit vector from baseline to the top of the figures (page)
+  std::size_t line = 0;  // index into the lines
+  Point centre_mm;       // page position of the figures' centre (on the line)
+  double angle_rad = 0;  // baseline direction, clockwise on the page
+  Point up_mm;           // unit vector from baseline to the top of the figures (page)
 };
 
 struct ContourLabels {

@@ -19,20 +19,20 @@ struct ContourLine {
   bool supplementary = false;  // half-interval line in gentle ground
   bool depression = false;     // closed line around lower ground
   bool closed = false;
-  bool uphill_known = true;    // false for supplied lines read without a DEM
-  Polyline ground;             // >= 2 points; higher ground on the left (when uphill_known)
+  bool uphill_known = true;  // false for supplied lines read without a DEM
+  Polyline ground;           // >= 2 points; higher ground on the left (when uphill_known)
 };
 
 struct ContourParams {
   double interval_m = 10;
   double base_m = 0;
-  int index_every = 5;                  // common practice: every fifth line
-  double scale_denominator = 25000;     // sets the print sizes below in ground metres
-  double smoothing_mm = 0.25;           // generalisation tolerance on paper
-  double min_loop_mm = 1.5;             // closed loops shorter than this on paper are dropped
-  bool supplementary = false;           // half-interval lines where the ground is gentle
+  int index_every = 5;               // common practice: every fifth line
+  double scale_denominator = 25000;  // sets the print sizes below in ground metres
+  double smoothing_mm = 0.25;        // generalisation tolerance on paper
+  double min_loop_mm = 1.5;          // closed loops shorter than this on paper are dropped
+  bool supplementary = false;        // half-interval lines where the ground is gentle
   double supplementary_max_slope_deg = 3;
-  double supplementary_min_mm = 10;     // shorter supplementary pieces are dropped
+  double supplementary_min_mm = 10;  // shorter supplementary pieces are dropped
 };
 
 // Throws Error(input) naming the key when the parameters cannot make contours

@@ -24,7 +24,7 @@ struct PrepareStats {
   long lines_restored = 0;  // reverted to raw geometry by the final crossing check
   long vertices_in = 0;
   long vertices_out = 0;
-  double length_in_m = 0;   // of the lines kept
+  double length_in_m = 0;  // of the lines kept
   double length_out_m = 0;
 };
 

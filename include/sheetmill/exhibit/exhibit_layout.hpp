@@ -4,8 +4,9 @@
 // arrow, the inset location map, and the notes (legend of areas, credits, caution).
 //
 // All boxes are page millimetres from the top-left corner, y down, inside the paper margins.
-// The map frame shows at least the project's extent, centred, at exactly 1:scale (the project's,
-// or the largest tidy scale at which the extent fits: a two-significant-figure denominator).
+// The map frame is exactly the project's extent at exactly 1:scale (the project's, or the
+// largest tidy scale at which the extent fits: a two-significant-figure denominator), centred
+// in the space between the title band and the furniture band.
 // Throws Error(input) when a stated scale cannot fit the extent on the paper.
 
 #include "sheetmill/core/map_frame.hpp"
@@ -20,11 +21,11 @@ struct ExhibitLayout {
   std::string paper_name;
   double margin_mm = 0;
   TypeScale type;
-  MapFrame frame;        // map_box is frame.page_box_mm()
+  MapFrame frame;  // map_box is frame.page_box_mm()
   Box map_box_mm;
   Box title_box_mm;
   Box colour_bar_box_mm;
-  Box scale_box_mm;      // scale bar (left part) and north arrow (right part)
+  Box scale_box_mm;  // scale bar (left part) and north arrow (right part)
   Box inset_box_mm;
   Box notes_box_mm;
 };

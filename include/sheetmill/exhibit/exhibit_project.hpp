@@ -24,14 +24,14 @@ struct LayerRef {
 
 // A project boundary or one of several alternatives, drawn with a strong outline.
 struct AreaOverlay {
-  LayerRef data;              // polygons from a file ...
-  Polyline ring;              // ... or one ring stated in the project (sheet CRS); then
-                              // data.path is empty
-  std::string label;          // legend text, e.g. "Alternative B: upstream basin"
+  LayerRef data;      // polygons from a file ...
+  Polyline ring;      // ... or one ring stated in the project (sheet CRS); then
+                      // data.path is empty
+  std::string label;  // legend text, e.g. "Alternative B: upstream basin"
   Colour colour{0.78, 0.12, 0.35, 1};
   double width_mm = 2.5;
   std::vector<double> dash_mm;  // empty: solid
-  bool focus = true;          // part of the area of interest (not dimmed)
+  bool focus = true;            // part of the area of interest (not dimmed)
 };
 
 struct PlaceCallouts {
@@ -49,18 +49,18 @@ struct ContextLayers {
 enum class ReliefCompression { lossless, jpeg };
 
 struct ReliefSettings {
-  std::string dem;                     // raster path (resolved)
-  std::optional<std::string> dem_crs;  // when the DEM carries none
-  std::string ramp_name = "clearsight";  // a shipped ramp (ramps.hpp) ...
-  std::optional<terrain::TintRamp> ramp;  // ... or explicit stops / a ramp file
+  std::string dem;                                   // raster path (resolved)
+  std::optional<std::string> dem_crs;                // when the DEM carries none
+  std::string ramp_name = "clearsight";              // a shipped ramp (ramps.hpp) ...
+  std::optional<terrain::TintRamp> ramp;             // ... or explicit stops / a ramp file
   std::optional<std::pair<double, double>> range_m;  // shipped ramp stretched over this range
   double exaggeration = 1;
-  double shade_strength = 0.55;        // 0..1, multiply blend of the hillshade
+  double shade_strength = 0.55;  // 0..1, multiply blend of the hillshade
   double altitude_deg = 45;
-  double dpi = 300;                    // relief resolution on paper
+  double dpi = 300;  // relief resolution on paper
   ReliefCompression compression = ReliefCompression::jpeg;
-  int jpeg_quality = 88;               // 1..100, GDAL JPEG driver QUALITY
-  std::optional<Colour> water_shade;   // soft tint over water areas; nullopt = none
+  int jpeg_quality = 88;              // 1..100, GDAL JPEG driver QUALITY
+  std::optional<Colour> water_shade;  // soft tint over water areas; nullopt = none
 };
 
 struct ExhibitProject {
@@ -69,17 +69,17 @@ struct ExhibitProject {
   std::string subtitle;
   std::string producer;
   std::string date;
-  std::vector<std::string> credits;     // data sources, one line each
-  std::vector<std::string> notes;       // extra lines for the notes panel
-  std::string crs;                      // sheet CRS as written (EPSG:32632)
-  std::string paper;                    // paper name or "WxH mm|in" (sheet/paper_sizes.hpp)
+  std::vector<std::string> credits;  // data sources, one line each
+  std::vector<std::string> notes;    // extra lines for the notes panel
+  std::string crs;                   // sheet CRS as written (EPSG:32632)
+  std::string paper;                 // paper name or "WxH mm|in" (sheet/paper_sizes.hpp)
   bool landscape = false;
-  Box extent;                           // ground box to show (sheet CRS metres)
-  std::optional<double> scale;          // N of 1:N; default: the largest tidy scale that fits
+  Box extent;                   // ground box to show (sheet CRS metres)
+  std::optional<double> scale;  // N of 1:N; default: the largest tidy scale that fits
   ReliefSettings relief;
   ContextLayers context;
   std::vector<AreaOverlay> areas;
-  double dim_outside = 0;               // 0..1 white veil outside the focus areas
+  double dim_outside = 0;  // 0..1 white veil outside the focus areas
   std::optional<PlaceCallouts> places;
 };
 

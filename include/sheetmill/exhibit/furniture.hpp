@@ -28,32 +28,31 @@ struct ColourBarReport {
 void draw_title(cairo_t* cr, const ExhibitLayout& layout, const ExhibitProject& project,
                 text::FontCache& fonts);
 
-// A horizontal bar (one gradient) with the ramp's colours placed linearly in elevation, a tick and a label at
-// every stop, the heading "Elevation (metres)" and, when the exaggeration is not 1, the line
-// "Vertical exaggeration Nx".
+// A horizontal bar (one gradient) with the ramp's colours placed linearly in elevation, a tick and
+// a label at every stop, the heading "Elevation (metres)" and, when the exaggeration is not 1, the
+// line "Vertical exaggeration Nx".
 ColourBarReport draw_colour_bar(cairo_t* cr, const Box& box, const terrain::TintRamp& ramp,
-                                double exaggeration, const TypeScale& type,
-                                text::FontCache& fonts);
+                                double exaggeration, const TypeScale& type, text::FontCache& fonts);
 
 // A scale bar of a Heckbert (1990) nice length with four alternating segments, labelled in m
 // or km, and the representative fraction at printed size. Returns the bar's length in metres.
-double draw_scale_bar(cairo_t* cr, const Box& box, const MapFrame& frame,
-                      const TypeScale& type, text::FontCache& fonts);
+double draw_scale_bar(cairo_t* cr, const Box& box, const MapFrame& frame, const TypeScale& type,
+                      text::FontCache& fonts);
 
 // A north arrow pointing to true north at the frame centre (grid convergence from PROJ), in
 // the box; returns the convergence in degrees (true north clockwise from grid north).
-double draw_north_arrow(cairo_t* cr, const Box& box, const MapFrame& frame,
-                        const TypeScale& type, text::FontCache& fonts);
+double draw_north_arrow(cairo_t* cr, const Box& box, const MapFrame& frame, const TypeScale& type,
+                        text::FontCache& fonts);
 
 // Area legend, credits, the exhibit's notes and the caution.
-void draw_notes(cairo_t* cr, const Box& box, const ExhibitProject& project,
-                const TypeScale& type, text::FontCache& fonts);
+void draw_notes(cairo_t* cr, const Box& box, const ExhibitProject& project, const TypeScale& type,
+                text::FontCache& fonts);
 
 // The caution printed on every exhibit.
 const std::vector<std::string>& caution_lines();
 
 // Lines of `text` no wider than width_mm at size_pt (greedy, by shaped word widths).
-std::vector<std::string> wrap_text(text::FontCache& fonts, const text::FontKey& key,
-                                   double size_pt, const std::string& text, double width_mm);
+std::vector<std::string> wrap_text(text::FontCache& fonts, const text::FontKey& key, double size_pt,
+                                   const std::string& text, double width_mm);
 
 }  // namespace sheetmill::exhibit

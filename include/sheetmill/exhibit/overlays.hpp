@@ -41,12 +41,11 @@ struct OverlayData {
 OverlayData read_overlays(const ExhibitProject& project, const MapFrame& frame);
 
 struct CalloutReport {
-  int placed_free = 0;     // placed without touching another callout
-  int placed_forced = 0;   // every position collided; placed at the first one anyway
+  int placed_free = 0;    // placed without touching another callout
+  int placed_forced = 0;  // every position collided; placed at the first one anyway
 };
 
 CalloutReport draw_overlays(cairo_t* cr, const ExhibitProject& project, const MapFrame& frame,
-                            const OverlayData& data, const TypeScale& type,
-                            text::FontCache& fonts);
+                            const OverlayData& data, const TypeScale& type, text::FontCache& fonts);
 
 }  // namespace sheetmill::exhibit

@@ -16,18 +16,18 @@
 namespace sheetmill::exhibit {
 
 struct ReliefStrip {
-  int row0 = 0;   // first row in the relief grid
+  int row0 = 0;  // first row in the relief grid
   int rows = 0;
 };
 
 struct ReliefPlan {
-  RasterGrid grid;              // the whole relief grid over the frame
+  RasterGrid grid;  // the whole relief grid over the frame
   std::vector<ReliefStrip> strips;
   terrain::ReliefParams params;
   terrain::DemReadOptions read_options;
   std::string dem_path;
-  double px_mm = 0;             // size of a relief cell on paper
-  Point origin_mm;              // page position of the grid's top-left corner
+  double px_mm = 0;  // size of a relief cell on paper
+  Point origin_mm;   // page position of the grid's top-left corner
 };
 
 inline constexpr long kDefaultStripPixels = 4L * 1024 * 1024;

@@ -21,8 +21,8 @@ enum class ExhibitFormat { pdf, png };
 
 struct ExhibitOptions {
   ExhibitFormat format = ExhibitFormat::pdf;
-  double png_dpi = 150;                  // PNG resolution (relief is rendered at this dpi too)
-  std::optional<double> relief_dpi;      // PDF: overrides the project's relief dpi
+  double png_dpi = 150;              // PNG resolution (relief is rendered at this dpi too)
+  std::optional<double> relief_dpi;  // PDF: overrides the project's relief dpi
   long max_strip_pixels = 4L * 1024 * 1024;
 };
 

@@ -12,7 +12,7 @@
 namespace sheetmill::exhibit {
 
 struct TypeScale {
-  double factor = 1;   // paper diagonal / ARCH E diagonal
+  double factor = 1;  // paper diagonal / ARCH E diagonal
   double title_pt = 64;
   double subtitle_pt = 40;
   double heading_pt = 28;

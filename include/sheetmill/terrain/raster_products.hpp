@@ -1,8 +1,8 @@
 #pragma once
-// Relief rasters in the DEM's own grid, written as tiled (256 x 256), compressed GeoTIFF with the DEM's
-// georeferencing. The DEM is processed in bands of rows (each read with one row of margin above
-// and below, so bands join exactly), so memory is bounded by a band, not by the raster. Output
-// appears whole or not at all (written to a temporary file, renamed on success).
+// Relief rasters in the DEM's own grid, written as tiled (256 x 256), compressed GeoTIFF with the
+// DEM's georeferencing. The DEM is processed in bands of rows (each read with one row of margin
+// above and below, so bands join exactly), so memory is bounded by a band, not by the raster.
+// Output appears whole or not at all (written to a temporary file, renamed on success).
 //
 //   hillshade: Byte, 0 = nodata, 1 + 254 * illumination (see shade.hpp)
 //   slope:     Float32 degrees or percent, nodata -9999 (0 is a valid slope)

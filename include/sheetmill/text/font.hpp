@@ -41,9 +41,10 @@ class FontCache {
   // The best match for `key`. Never returns null: fontconfig always substitutes something, and
   // the substitution is logged once when the family differs.
   const Font& primary(const FontKey& key);
-  // Fallback faces for `key` in fontconfig's preference order, for codepoints the primary face
-  // lacks (non-Latin scripts). Computed once per key.
-  const std::vector<const Font*>& fallbacks(const FontKey& key);
+  // The first face in fontconfig's preference order for `key` that covers `codepoint` (by the
+  // face's character set), for codepoints the primary face lacks (non-Latin scripts). Faces are
+  // loaded only when first chosen. Returns null when no installed face covers the codepoint.
+  const Font* fallback_for(const FontKey& key, char32_t codepoint);
 
  private:
   struct Impl;
