@@ -36,14 +36,14 @@ int run(int argc, const char* const* argv) {
     std::fprintf(stderr, "sheetmill: %s (see sheetmill --help)\n", e.what());
     return 2;
   }
-  log::set_level(global.quiet ? log::Level::error
+  log::set_level(global.quiet     ? log::Level::error
                  : global.verbose ? log::Level::debug
                                   : log::Level::info);
   try {
     return action ? action() : 0;
   } catch (const Error& e) {
-    std::fprintf(stderr, "sheetmill: %s%s\n", e.kind() == Error::Kind::internal ? "internal error: " : "",
-                 e.what());
+    std::fprintf(stderr, "sheetmill: %s%s\n",
+                 e.kind() == Error::Kind::internal ? "internal error: " : "", e.what());
     return e.exit_code();
   } catch (const std::exception& e) {
     std::fprintf(stderr, "sheetmill: internal error: %s\n", e.what());

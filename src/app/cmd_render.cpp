@@ -26,11 +26,14 @@ render::OutputFormat format_for(const std::filesystem::path& out) {
 
 void add_render_command(CLI::App& app, Action& action, const GlobalOptions&) {
   auto args = std::make_shared<RenderArgs>();
-  CLI::App* cmd = app.add_subcommand("render", "Render one sheet of a project to PDF (or PNG/GeoTIFF)");
+  CLI::App* cmd =
+      app.add_subcommand("render", "Render one sheet of a project to PDF (or PNG/GeoTIFF)");
   cmd->add_option("project", args->project, "Project file (YAML)")->required();
   cmd->add_option("-o,--output", args->output, "Output file: .pdf, .png or .tif")->required();
-  cmd->add_option("--sheet", args->sheet, "Render this tile-index sheet instead of the project's extent");
-  cmd->add_option("--dpi", args->dpi, "Resolution of PNG/GeoTIFF output")->check(CLI::Range(20.0, 1200.0));
+  cmd->add_option("--sheet", args->sheet,
+                  "Render this tile-index sheet instead of the project's extent");
+  cmd->add_option("--dpi", args->dpi, "Resolution of PNG/GeoTIFF output")
+      ->check(CLI::Range(20.0, 1200.0));
   cmd->callback([args, &action] {
     action = [args] {
       project::Project project = project::load_project(args->project);
@@ -44,11 +47,12 @@ void add_render_command(CLI::App& app, Action& action, const GlobalOptions&) {
         log::info("layer {}: {} features, {} labels placed, {} dropped", layer.layer,
                   layer.features, layer.labels_placed, layer.labels_dropped);
       }
-      log::info("wrote {} in {:.1f} s (relief {:.1f} s, contours {:.1f} s, features {:.1f} s, "
-                "labels {:.1f} s, finish {:.1f} s)",
-                report.output.string(), report.seconds_total, report.seconds_relief,
-                report.seconds_contours, report.seconds_features, report.seconds_labels,
-                report.seconds_finish);
+      log::info(
+          "wrote {} in {:.1f} s (relief {:.1f} s, contours {:.1f} s, features {:.1f} s, "
+          "labels {:.1f} s, finish {:.1f} s)",
+          report.output.string(), report.seconds_total, report.seconds_relief,
+          report.seconds_contours, report.seconds_features, report.seconds_labels,
+          report.seconds_finish);
       return 0;
     };
   });

@@ -3,7 +3,6 @@
 // add_NAME_command(). The action it stores runs after parsing succeeds and returns an exit code.
 
 #include <CLI/CLI.hpp>
-
 #include <functional>
 
 namespace sheetmill::app {

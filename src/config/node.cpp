@@ -30,7 +30,9 @@ SourceLocation ConfigNode::location() const {
   return where;
 }
 
-void ConfigNode::fail(const std::string& message) const { throw_input_error(location(), message); }
+void ConfigNode::fail(const std::string& message) const {
+  throw_input_error(location(), message);
+}
 
 std::string ConfigNode::shown() const {
   if (!node_ || node_.IsNull()) return "nothing";

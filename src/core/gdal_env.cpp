@@ -28,8 +28,12 @@ void GdalErrorScope::handler(CPLErr level, CPLErrorNum, const char* msg) {
   }
 }
 
-GdalErrorScope::GdalErrorScope() { CPLPushErrorHandlerEx(&GdalErrorScope::handler, this); }
-GdalErrorScope::~GdalErrorScope() { CPLPopErrorHandler(); }
+GdalErrorScope::GdalErrorScope() {
+  CPLPushErrorHandlerEx(&GdalErrorScope::handler, this);
+}
+GdalErrorScope::~GdalErrorScope() {
+  CPLPopErrorHandler();
+}
 
 namespace {
 DatasetPtr open_with(const std::string& path, unsigned flags, const char* what) {

@@ -12,8 +12,12 @@ std::mutex g_mutex;
 thread_local WarningCollector* t_collector = nullptr;
 }  // namespace
 
-void set_level(Level level) { g_level = level; }
-Level level() { return g_level; }
+void set_level(Level level) {
+  g_level = level;
+}
+Level level() {
+  return g_level;
+}
 
 void write(Level lvl, const std::string& message) {
   if (lvl == Level::warning && t_collector) t_collector->warnings_.push_back(message);
@@ -23,7 +27,11 @@ void write(Level lvl, const std::string& message) {
   std::fprintf(stderr, "sheetmill: %s%s\n", prefix, message.c_str());
 }
 
-WarningCollector::WarningCollector() : previous_(t_collector) { t_collector = this; }
-WarningCollector::~WarningCollector() { t_collector = previous_; }
+WarningCollector::WarningCollector() : previous_(t_collector) {
+  t_collector = this;
+}
+WarningCollector::~WarningCollector() {
+  t_collector = previous_;
+}
 
 }  // namespace sheetmill::log

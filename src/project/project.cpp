@@ -74,7 +74,8 @@ Extent read_extent(const ConfigNode& n) {
   }
   if (auto b = n.find("box")) {
     auto v = b->as_numbers(4);
-    if (v[2] <= v[0] || v[3] <= v[1]) b->fail("expected [min_x, min_y, max_x, max_y] with max > min");
+    if (v[2] <= v[0] || v[3] <= v[1])
+      b->fail("expected [min_x, min_y, max_x, max_y] with max > min");
     e.box = Box::of(v[0], v[1], v[2], v[3]);
     ++given;
   }
@@ -138,7 +139,8 @@ Output read_output(const ConfigNode& n) {
     o.relief_dpi = d->as_number();
     if (o.relief_dpi < 50 || o.relief_dpi > 1200) d->fail("expected a resolution from 50 to 1200");
   }
-  if (auto c = n.find("relief_compression")) o.relief_compression = c->as_choice({"lossless", "jpeg"});
+  if (auto c = n.find("relief_compression"))
+    o.relief_compression = c->as_choice({"lossless", "jpeg"});
   if (auto q = n.find("jpeg_quality")) {
     o.jpeg_quality = q->as_int();
     if (o.jpeg_quality < 10 || o.jpeg_quality > 100) q->fail("expected a quality from 10 to 100");
@@ -195,9 +197,8 @@ Source source_for(const Project& project, const std::string& name) {
   auto it = project.sources.find(name);
   if (it != project.sources.end()) return it->second;
   if (project.vector_data.empty()) {
-    throw_input_error(project.file.string(),
-                      "sources: the style needs a source named '" + name +
-                          "'; add it under sources or give vector_data");
+    throw_input_error(project.file.string(), "sources: the style needs a source named '" + name +
+                                                 "'; add it under sources or give vector_data");
   }
   Source s;
   s.name = name;

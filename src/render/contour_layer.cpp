@@ -6,8 +6,8 @@
 #include "sheetmill/contours/contour_labels.hpp"
 #include "sheetmill/contours/contour_layer.hpp"
 #include "sheetmill/contours/generate.hpp"
-#include "sheetmill/contours/water_clip.hpp"
 #include "sheetmill/contours/spot_heights.hpp"
+#include "sheetmill/contours/water_clip.hpp"
 #include "sheetmill/core/log.hpp"
 
 namespace sheetmill::render {
@@ -27,8 +27,7 @@ RasterGrid contour_grid(const project::Project& project, const MapFrame& frame) 
 }  // namespace
 
 SheetContours build_contours(const project::Project& project, const style::Style& style,
-                             const MapFrame& frame,
-                             const std::vector<std::vector<Polyline>>& water,
+                             const MapFrame& frame, const std::vector<std::vector<Polyline>>& water,
                              text::FontCache& fonts) {
   SheetContours out;
   const style::ContourStyle& cs = style.contours;

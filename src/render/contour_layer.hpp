@@ -18,16 +18,15 @@ namespace sheetmill::render {
 struct SheetContours {
   double interval_m = 0;
   std::vector<contours::ContourLine> lines;
-  terrain::Dem dem;                          // the grid they came from (for uphill labels)
-  std::vector<contours::SpotHeight> spots;   // summits from the DEM
-  std::vector<labels::Candidate> labels;     // index values and spot heights
+  terrain::Dem dem;                         // the grid they came from (for uphill labels)
+  std::vector<contours::SpotHeight> spots;  // summits from the DEM
+  std::vector<labels::Candidate> labels;    // index values and spot heights
 };
 
 // Builds the sheet's contours and their label candidates. `water` are lake/pond polygons in ground
 // coordinates that contours must not cross.
 SheetContours build_contours(const project::Project& project, const style::Style& style,
-                             const MapFrame& frame,
-                             const std::vector<std::vector<Polyline>>& water,
+                             const MapFrame& frame, const std::vector<std::vector<Polyline>>& water,
                              text::FontCache& fonts);
 
 }  // namespace sheetmill::render

@@ -134,6 +134,8 @@ RenderReport render_sheet(const project::Project& project, const style::Style& s
   AtomicOutput out(output);
   if (options.format == OutputFormat::png) {
     canvas.finish_png(out.temp_path(), options.raster_dpi);
+  } else if (options.format == OutputFormat::geotiff) {
+    canvas.finish_geotiff(out.temp_path(), options.raster_dpi, registration(frame));
   } else {
     pdf::Metadata meta;
     meta.title = project.title;

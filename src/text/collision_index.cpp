@@ -8,7 +8,9 @@ namespace sheetmill::text {
 Quad rotated_box(Point origin, double w, double h, double angle_rad) {
   // Page y runs down: the box extends from the baseline upwards, i.e. towards -y in its own frame.
   double c = std::cos(angle_rad), s = std::sin(angle_rad);
-  auto at = [&](double x, double y) { return Point{origin.x + x * c - y * s, origin.y + x * s + y * c}; };
+  auto at = [&](double x, double y) {
+    return Point{origin.x + x * c - y * s, origin.y + x * s + y * c};
+  };
   return {at(0, 0), at(w, 0), at(w, -h), at(0, -h)};
 }
 

@@ -42,9 +42,9 @@ class LoadedFont final : public Font {
     FT_Face face = holder->face;
     cairo_.reset(cairo_ft_font_face_create_for_ft_face(face, 0));
     check_cairo(cairo_font_face_status(cairo_.get()), "font face");
-    if (cairo_font_face_set_user_data(cairo_.get(), &g_holder_key, holder.get(),
-                                      [](void* p) { delete static_cast<FtFaceHolder*>(p); }) !=
-        CAIRO_STATUS_SUCCESS) {
+    if (cairo_font_face_set_user_data(cairo_.get(), &g_holder_key, holder.get(), [](void* p) {
+          delete static_cast<FtFaceHolder*>(p);
+        }) != CAIRO_STATUS_SUCCESS) {
       throw_internal_error("cairo cannot keep the font face");
     }
     holder.release();

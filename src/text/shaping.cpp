@@ -146,7 +146,9 @@ CairoRun cairo_run(const ShapedRun& run, double dx, double dy) {
   return cr;
 }
 
-void set_colour(cairo_t* cr, const Colour& c) { cairo_set_source_rgba(cr, c.r, c.g, c.b, c.a); }
+void set_colour(cairo_t* cr, const Colour& c) {
+  cairo_set_source_rgba(cr, c.r, c.g, c.b, c.a);
+}
 
 void show_run(cairo_t* cr, const std::string& utf8, const ShapedRun& run, const CairoRun& g) {
   uint32_t first = g.flags ? run.glyphs.back().cluster : run.glyphs.front().cluster;
@@ -206,7 +208,8 @@ std::vector<PlacedGlyph> layout_on_path(const ShapedText& text, const Polyline& 
   std::vector<PlacedGlyph> out;
   if (path.size() < 2) return out;
   std::vector<double> along(path.size(), 0);
-  for (std::size_t i = 1; i < path.size(); ++i) along[i] = along[i - 1] + distance(path[i - 1], path[i]);
+  for (std::size_t i = 1; i < path.size(); ++i)
+    along[i] = along[i - 1] + distance(path[i - 1], path[i]);
   std::size_t seg = 0;
   double prev_angle = 0;
   bool have_prev = false;
@@ -240,8 +243,8 @@ std::vector<PlacedGlyph> layout_on_path(const ShapedText& text, const Polyline& 
   return out;
 }
 
-void draw_placed_glyphs(cairo_t* cr, const ShapedText& text,
-                        const std::vector<PlacedGlyph>& glyphs, const TextPaint& paint) {
+void draw_placed_glyphs(cairo_t* cr, const ShapedText& text, const std::vector<PlacedGlyph>& glyphs,
+                        const TextPaint& paint) {
   const double size_mm = text.size_pt * kMmPerPt;
   // Two passes so no glyph's halo covers a neighbour's ink.
   for (int pass = paint.halo ? 0 : 1; pass < 2; ++pass) {

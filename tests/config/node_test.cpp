@@ -1,6 +1,6 @@
-#include <catch2/catch.hpp>
-
 #include "sheetmill/config/node.hpp"
+
+#include <catch2/catch.hpp>
 
 using sheetmill::Error;
 using sheetmill::config::load_string;
@@ -29,8 +29,9 @@ TEST_CASE("lengths carry their unit", "[config]") {
 
 TEST_CASE("unknown keys name the closest known key", "[config]") {
   auto doc = load_string("title: x\nscael: 25000\n", "p.yaml");
-  CHECK(message_of([&] { doc.expect_keys({"title", "scale", "paper"}); }) ==
-        "p.yaml:2:1: scael: unknown key 'scael'; did you mean 'scale'?");
+  CHECK(message_of([&] {
+          doc.expect_keys({"title", "scale", "paper"});
+        }) == "p.yaml:2:1: scael: unknown key 'scael'; did you mean 'scale'?");
 }
 
 TEST_CASE("syntax errors give line and column", "[config]") {
@@ -43,8 +44,9 @@ TEST_CASE("key paths run through lists", "[config]") {
   auto doc = load_string("layers:\n  - width: 1mm\n  - width: big\n", "s.yaml");
   auto items = doc.at("layers").items();
   REQUIRE(items.size() == 2);
-  CHECK(message_of([&] { items[1].at("width").as_length_mm(); })
-            .rfind("s.yaml:3:12: layers[1].width: expected a length", 0) == 0);
+  CHECK(message_of([&] {
+          items[1].at("width").as_length_mm();
+        }).rfind("s.yaml:3:12: layers[1].width: expected a length", 0) == 0);
   CHECK(message_of([&] { items[0].at("colour"); }) ==
         "s.yaml:2:5: layers[0]: missing required key 'colour'");
 }

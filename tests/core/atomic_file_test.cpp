@@ -1,6 +1,7 @@
+#include "sheetmill/core/atomic_file.hpp"
+
 #include <catch2/catch.hpp>
 
-#include "sheetmill/core/atomic_file.hpp"
 #include "support/test_env.hpp"
 
 namespace fs = std::filesystem;

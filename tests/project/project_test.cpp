@@ -1,7 +1,8 @@
+#include "sheetmill/project/project.hpp"
+
 #include <catch2/catch.hpp>
 
 #include "sheetmill/core/error.hpp"
-#include "sheetmill/project/project.hpp"
 #include "support/test_env.hpp"
 
 using namespace sheetmill;
@@ -26,14 +27,17 @@ const char* kMinimal =
 TEST_CASE("paper sizes follow ISO 216, ANSI and ARCH", "[project]") {
   // ISO 216: A0 841 x 1189 mm ... A4 210 x 297 mm. ANSI A-E 8.5x11 in to 34x44 in; ARCH A-E
   // 9x12 in to 36x48 in, E1 30x42 in (REFERENCES.md, paper sizes).
-  struct Case { const char* name; double w, h; };
-  const Case cases[] = {{"A0", 841, 1189}, {"A1", 594, 841}, {"A2", 420, 594}, {"A3", 297, 420},
-                        {"A4", 210, 297}, {"ANSI A", 215.9, 279.4}, {"ANSI B", 279.4, 431.8},
-                        {"ANSI C", 431.8, 558.8}, {"ANSI D", 558.8, 863.6},
-                        {"ANSI E", 863.6, 1117.6}, {"ARCH A", 228.6, 304.8},
-                        {"ARCH B", 304.8, 457.2}, {"ARCH C", 457.2, 609.6},
-                        {"ARCH D", 609.6, 914.4}, {"ARCH E", 914.4, 1219.2},
-                        {"ARCH E1", 762, 1066.8}};
+  struct Case {
+    const char* name;
+    double w, h;
+  };
+  const Case cases[] = {
+      {"A0", 841, 1189},         {"A1", 594, 841},         {"A2", 420, 594},
+      {"A3", 297, 420},          {"A4", 210, 297},         {"ANSI A", 215.9, 279.4},
+      {"ANSI B", 279.4, 431.8},  {"ANSI C", 431.8, 558.8}, {"ANSI D", 558.8, 863.6},
+      {"ANSI E", 863.6, 1117.6}, {"ARCH A", 228.6, 304.8}, {"ARCH B", 304.8, 457.2},
+      {"ARCH C", 457.2, 609.6},  {"ARCH D", 609.6, 914.4}, {"ARCH E", 914.4, 1219.2},
+      {"ARCH E1", 762, 1066.8}};
   for (const auto& c : cases) {
     auto p = project::paper_by_name(c.name);
     CHECK(p.width_mm == Approx(c.w).margin(1e-9));
@@ -73,7 +77,7 @@ TEST_CASE("project errors name file, line:column, key path and what was expected
         p + ":7:22: contours.interval: expected a contour interval > 0");
   CHECK(load_error(dir, std::string(kMinimal) + "margin: 10\n") ==
         p + ":7:9: margin: expected a length such as 0.35mm (units: mm, cm, in, pt), got \"10\"");
-  CHECK(load_error(dir, "title: [\n") .rfind(p + ":", 0) == 0);
+  CHECK(load_error(dir, "title: [\n").rfind(p + ":", 0) == 0);
   CHECK(load_error(dir, "title: T\n") == p + ":1:1: missing required key 'crs'");
   std::string missing = (dir / "nope.yaml").string();
   try {

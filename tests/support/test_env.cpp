@@ -15,10 +15,18 @@ namespace sheetmill::test {
 
 namespace fs = std::filesystem;
 
-fs::path source_dir() { return SHEETMILL_SOURCE_DIR; }
-fs::path binary_dir() { return SHEETMILL_BINARY_DIR; }
-fs::path sheetmill_exe() { return SHEETMILL_EXE; }
-fs::path shared_dir() { return (source_dir() / ".." / "shared").lexically_normal(); }
+fs::path source_dir() {
+  return SHEETMILL_SOURCE_DIR;
+}
+fs::path binary_dir() {
+  return SHEETMILL_BINARY_DIR;
+}
+fs::path sheetmill_exe() {
+  return SHEETMILL_EXE;
+}
+fs::path shared_dir() {
+  return (source_dir() / ".." / "shared").lexically_normal();
+}
 
 fs::path open_data(const std::string& package, const std::string& path_inside) {
   return source_dir() / "tests" / "data" / "cache" / package / path_inside;

@@ -23,8 +23,8 @@ class TempDir {
   std::filesystem::path path_;
 };
 
-std::filesystem::path source_dir();   // the repository root
-std::filesystem::path binary_dir();   // the build folder
+std::filesystem::path source_dir();  // the repository root
+std::filesystem::path binary_dir();  // the build folder
 std::filesystem::path sheetmill_exe();
 // ../shared beside the repository (WMM coefficients etc.); tests that need it skip without it.
 std::filesystem::path shared_dir();

@@ -1,10 +1,12 @@
+#include "sheetmill/text/shaping.hpp"
+
 #include <cairo-pdf.h>
-#include <catch2/catch.hpp>
 #include <hb.h>
+
+#include <catch2/catch.hpp>
 
 #include "sheetmill/core/units.hpp"
 #include "sheetmill/text/collision_index.hpp"
-#include "sheetmill/text/shaping.hpp"
 #include "support/test_env.hpp"
 
 using namespace sheetmill;

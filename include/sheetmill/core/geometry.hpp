@@ -14,13 +14,27 @@ struct Point {
   double y = 0;
 };
 
-inline Point operator+(Point a, Point b) { return {a.x + b.x, a.y + b.y}; }
-inline Point operator-(Point a, Point b) { return {a.x - b.x, a.y - b.y}; }
-inline Point operator*(Point a, double s) { return {a.x * s, a.y * s}; }
-inline double dot(Point a, Point b) { return a.x * b.x + a.y * b.y; }
-inline double cross(Point a, Point b) { return a.x * b.y - a.y * b.x; }
-inline double length(Point a) { return std::hypot(a.x, a.y); }
-inline double distance(Point a, Point b) { return length(a - b); }
+inline Point operator+(Point a, Point b) {
+  return {a.x + b.x, a.y + b.y};
+}
+inline Point operator-(Point a, Point b) {
+  return {a.x - b.x, a.y - b.y};
+}
+inline Point operator*(Point a, double s) {
+  return {a.x * s, a.y * s};
+}
+inline double dot(Point a, Point b) {
+  return a.x * b.x + a.y * b.y;
+}
+inline double cross(Point a, Point b) {
+  return a.x * b.y - a.y * b.x;
+}
+inline double length(Point a) {
+  return std::hypot(a.x, a.y);
+}
+inline double distance(Point a, Point b) {
+  return length(a - b);
+}
 
 // Axis-aligned box; empty() when nothing has been added.
 struct Box {

@@ -12,7 +12,6 @@
 
 #include <memory>
 
-
 namespace sheetmill {
 
 template <auto Destroy>

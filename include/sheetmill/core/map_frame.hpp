@@ -18,13 +18,13 @@
 namespace sheetmill {
 
 struct MapFrame {
-  std::string crs_wkt;            // sheet CRS, WKT2
-  std::string crs_name;           // e.g. "WGS 84 / UTM zone 33N"
-  int epsg = 0;                   // 0 when the CRS has no EPSG code
-  double scale_denominator = 0;   // N of 1:N
-  Box ground;                     // metres, sheet CRS
-  Point page_origin_mm;           // page position of (ground.min_x, ground.max_y)
-  std::vector<Point> neatline;    // ground polygon, closed implicitly
+  std::string crs_wkt;           // sheet CRS, WKT2
+  std::string crs_name;          // e.g. "WGS 84 / UTM zone 33N"
+  int epsg = 0;                  // 0 when the CRS has no EPSG code
+  double scale_denominator = 0;  // N of 1:N
+  Box ground;                    // metres, sheet CRS
+  Point page_origin_mm;          // page position of (ground.min_x, ground.max_y)
+  std::vector<Point> neatline;   // ground polygon, closed implicitly
 
   double mm_per_metre() const { return 1000.0 / scale_denominator; }
   double metres_per_mm() const { return scale_denominator / 1000.0; }

@@ -16,17 +16,17 @@
 namespace sheetmill::labels {
 
 struct Placement {
-  std::vector<text::Quad> footprint;       // page mm; what the label occupies
-  std::function<void(cairo_t*)> draw;      // draws the label (text, halo) in page mm
-  double cost = 0;                         // among one candidate's placements, lower is better
+  std::vector<text::Quad> footprint;   // page mm; what the label occupies
+  std::function<void(cairo_t*)> draw;  // draws the label (text, halo) in page mm
+  double cost = 0;                     // among one candidate's placements, lower is better
 };
 
 struct Candidate {
-  std::string layer;                       // for the render log's per-layer counts
-  int priority = 50;                       // higher first
-  bool may_drop = true;                    // false: placed at its best position even if it collides
+  std::string layer;     // for the render log's per-layer counts
+  int priority = 50;     // higher first
+  bool may_drop = true;  // false: placed at its best position even if it collides
   std::vector<Placement> placements;
-  std::optional<std::size_t> chosen;       // set by place()
+  std::optional<std::size_t> chosen;  // set by place()
 };
 
 struct LayerCount {

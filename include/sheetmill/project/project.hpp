@@ -15,24 +15,24 @@ namespace sheetmill::project {
 
 // A logical data source that style layers refer to by name.
 struct Source {
-  std::string name;               // the key the style uses ("roads")
-  std::string path;               // file path (resolved) or a GDAL connection string
-  std::string layer;              // layer inside the dataset; empty = the first/only one
-  std::string where;              // optional attribute filter in OGR SQL, pushed down to GDAL
-  bool required = true;           // missing required source = error; optional = warning
+  std::string name;      // the key the style uses ("roads")
+  std::string path;      // file path (resolved) or a GDAL connection string
+  std::string layer;     // layer inside the dataset; empty = the first/only one
+  std::string where;     // optional attribute filter in OGR SQL, pushed down to GDAL
+  bool required = true;  // missing required source = error; optional = warning
 };
 
 struct Paper {
-  std::string name;               // "A1", "ARCH E", "custom"
-  double width_mm = 0;            // after orientation is applied
+  std::string name;     // "A1", "ARCH E", "custom"
+  double width_mm = 0;  // after orientation is applied
   double height_mm = 0;
 };
 
 // How the map frame's extent is chosen; exactly one is set.
 struct Extent {
-  std::optional<Point> centre;              // sheet CRS; frame size from paper and collar
-  std::optional<Box> box;                   // sheet CRS bounding box
-  std::optional<std::string> sheet_id;      // a feature of the tile index
+  std::optional<Point> centre;          // sheet CRS; frame size from paper and collar
+  std::optional<Box> box;               // sheet CRS bounding box
+  std::optional<std::string> sheet_id;  // a feature of the tile index
 };
 
 struct TileIndex {
@@ -43,31 +43,31 @@ struct TileIndex {
 };
 
 struct Elevation {
-  std::string dem;                          // raster path; empty = no relief
-  std::optional<std::string> vertical_unit; // "m", "ft", "us-ft"; default from the CRS
-  std::optional<std::string> crs;           // when the DEM carries none
-  std::optional<std::string> vertical_datum; // text for the notes, e.g. "EGM2008 height"
+  std::string dem;                            // raster path; empty = no relief
+  std::optional<std::string> vertical_unit;   // "m", "ft", "us-ft"; default from the CRS
+  std::optional<std::string> crs;             // when the DEM carries none
+  std::optional<std::string> vertical_datum;  // text for the notes, e.g. "EGM2008 height"
 };
 
 struct ContourSettings {
-  std::optional<double> interval_m;          // else style, else proposed from scale and relief
+  std::optional<double> interval_m;  // else style, else proposed from scale and relief
   double base_m = 0;
-  std::optional<Source> from_layer;          // supplied contours instead of the DEM
+  std::optional<Source> from_layer;  // supplied contours instead of the DEM
   std::string elevation_field = "elevation";
 };
 
 struct Magnetic {
-  std::optional<std::string> model_file;     // WMM coefficient file
-  std::optional<double> declination_deg;     // stated by hand, east positive
+  std::optional<std::string> model_file;  // WMM coefficient file
+  std::optional<double> declination_deg;  // stated by hand, east positive
   std::optional<double> annual_change_deg;
-  std::optional<std::string> date;           // YYYY-MM-DD or decimal year; default: today
+  std::optional<std::string> date;  // YYYY-MM-DD or decimal year; default: today
 };
 
 struct Output {
   double relief_dpi = 300;
   std::string relief_compression = "lossless";  // "lossless" or "jpeg"
   int jpeg_quality = 85;
-  std::string file_template = "{id}.pdf";       // batch output names
+  std::string file_template = "{id}.pdf";  // batch output names
 };
 
 struct Project {
@@ -76,19 +76,19 @@ struct Project {
   std::string subtitle;
   std::string producer;
   std::string revision_date;
-  std::vector<std::string> data_credits;        // "Roads: County survey 2024"
-  std::vector<std::string> notes;               // extra collar notes
-  std::string crs;                              // sheet CRS as the user wrote it (EPSG:32633)
-  double scale = 25000;                         // N of 1:N
+  std::vector<std::string> data_credits;  // "Roads: County survey 2024"
+  std::vector<std::string> notes;         // extra collar notes
+  std::string crs;                        // sheet CRS as the user wrote it (EPSG:32633)
+  double scale = 25000;                   // N of 1:N
   Paper paper;
-  std::optional<double> margin_mm;              // override of the style's margins
+  std::optional<double> margin_mm;  // override of the style's margins
   Extent extent;
   std::filesystem::path style;
   Elevation elevation;
   ContourSettings contours;
-  std::map<std::string, Source> sources;        // by logical name
-  std::string vector_data;                      // default dataset: a source not listed in
-                                                // `sources` is its layer of the same name
+  std::map<std::string, Source> sources;  // by logical name
+  std::string vector_data;                // default dataset: a source not listed in
+                                          // `sources` is its layer of the same name
   std::optional<TileIndex> tile_index;
   Magnetic magnetic;
   Output output;

@@ -16,8 +16,8 @@ enum class OutputFormat { pdf, png, geotiff };
 
 struct RenderOptions {
   OutputFormat format = OutputFormat::pdf;
-  double raster_dpi = 150;                   // PNG/GeoTIFF export
-  std::optional<std::string> sheet_id;       // overrides the project's extent with an index sheet
+  double raster_dpi = 150;              // PNG/GeoTIFF export
+  std::optional<std::string> sheet_id;  // overrides the project's extent with an index sheet
 };
 
 struct LayerReport {

@@ -42,7 +42,7 @@ struct Stroke {
 struct ShapePart {
   enum class Kind { circle, square, triangle, cross, path };
   Kind kind = Kind::circle;
-  double size_mm = 1.0;  // diameter, side, or cross arm length
+  double size_mm = 1.0;   // diameter, side, or cross arm length
   std::string path_data;  // Kind::path: "M x y L x y ... Z" in mm, relative to the anchor
   Point offset_mm;
   std::optional<Colour> fill;
@@ -51,23 +51,23 @@ struct ShapePart {
 
 struct PointSymbol {
   std::vector<ShapePart> parts;
-  double scale = 1.0;              // multiplies every size of the parts
-  std::string rotation_field;      // degrees clockwise from north (sheet up); empty = none
-  double rotation_deg = 0;         // fixed rotation when no field
+  double scale = 1.0;          // multiplies every size of the parts
+  std::string rotation_field;  // degrees clockwise from north (sheet up); empty = none
+  double rotation_deg = 0;     // fixed rotation when no field
 };
 
 // Marks repeated along a line: ticks (railway sleepers, embankment hachures) or small symbols.
 struct LineMarks {
   double spacing_mm = 2.0;
-  double start_mm = 1.0;       // distance of the first mark from the line's start
-  double length_mm = 0.8;      // tick length
+  double start_mm = 1.0;   // distance of the first mark from the line's start
+  double length_mm = 0.8;  // tick length
   enum class Side { left, right, both } side = Side::both;
-  Stroke stroke;               // the tick's ink
+  Stroke stroke;                      // the tick's ink
   std::optional<PointSymbol> symbol;  // instead of a tick, a symbol rotated with the line
 };
 
 struct LineSymbol {
-  std::vector<Stroke> strokes;            // drawn in order within a pass
+  std::vector<Stroke> strokes;  // drawn in order within a pass
   std::vector<LineMarks> marks;
 };
 
@@ -117,20 +117,20 @@ struct LabelStyle {
   double size_pt = 8;
   Colour colour;
   std::optional<Halo> halo;
-  double letter_spacing_em = 0;     // extra space between letters, in ems
+  double letter_spacing_em = 0;  // extra space between letters, in ems
   LabelPlacement placement = LabelPlacement::point;
-  int priority = 50;                // higher is placed first
-  double repeat_mm = 0;             // along lines: distance between repeats; 0 = once
-  double offset_mm = 1.0;           // points: gap between symbol and text
-  bool may_drop = true;             // false: placed even when it collides (and reported)
-  bool spread_in_area = false;      // areas: letter-space to fill the area (lakes, regions)
+  int priority = 50;            // higher is placed first
+  double repeat_mm = 0;         // along lines: distance between repeats; 0 = once
+  double offset_mm = 1.0;       // points: gap between symbol and text
+  bool may_drop = true;         // false: placed even when it collides (and reported)
+  bool spread_in_area = false;  // areas: letter-space to fill the area (lakes, regions)
   bool upper_case = false;
 };
 
 struct Rule {
-  std::string name;        // for the log and the legend's order
+  std::string name;  // for the log and the legend's order
   Filter filter;
-  std::string legend;      // legend text; empty = not in the legend
+  std::string legend;  // legend text; empty = not in the legend
   std::optional<LineSymbol> line;
   std::optional<AreaSymbol> area;
   std::optional<PointSymbol> point;
@@ -138,15 +138,15 @@ struct Rule {
 };
 
 struct Layer {
-  std::string id;            // unique within the style
-  std::string source;        // logical source name, mapped by the project file
-  std::string group;         // optional-content group in the PDF (water, transport, ...)
-  double min_scale = 0;      // visible when min_scale <= N <= max_scale (N of 1:N); 0 = open
+  std::string id;        // unique within the style
+  std::string source;    // logical source name, mapped by the project file
+  std::string group;     // optional-content group in the PDF (water, transport, ...)
+  double min_scale = 0;  // visible when min_scale <= N <= max_scale (N of 1:N); 0 = open
   double max_scale = 0;
-  int order = 0;             // draw order; lower first; ties keep file order
-  bool obstacle = false;     // labels avoid this layer's symbols
-  bool water_surface = false; // its areas are water (lakes, ponds): contours are clipped out
-  std::vector<Rule> rules;   // first matching rule wins
+  int order = 0;               // draw order; lower first; ties keep file order
+  bool obstacle = false;       // labels avoid this layer's symbols
+  bool water_surface = false;  // its areas are water (lakes, ponds): contours are clipped out
+  std::vector<Rule> rules;     // first matching rule wins
   std::optional<LabelStyle> label;
 };
 
@@ -169,40 +169,40 @@ struct ReliefStyle {
   bool tint_steps_follow_contours = false;
   double tint_strength = 1.0;
   std::optional<Colour> water_shade;  // optional soft shading of water bodies
-  double dpi = 300;             // relief raster resolution on paper
+  double dpi = 300;                   // relief raster resolution on paper
 };
 
 struct ContourStyle {
-  int index_every = 5;                // common practice: every fifth line is an index contour
-  std::optional<double> interval_m;   // the project may override
+  int index_every = 5;               // common practice: every fifth line is an index contour
+  std::optional<double> interval_m;  // the project may override
   LineSymbol line;
   LineSymbol index_line;
   std::optional<LineSymbol> supplementary;  // half-interval lines in gentle ground
   double supplementary_max_slope_deg = 3;
-  LineSymbol depression_ticks;        // marks on the downhill side; strokes for the line itself
+  LineSymbol depression_ticks;  // marks on the downhill side; strokes for the line itself
   double tick_spacing_mm = 2.5;
   double tick_length_mm = 0.6;
-  LabelStyle label;                   // index contour values
+  LabelStyle label;  // index contour values
   double label_spacing_mm = 80;
-  bool labels_upright = false;        // false: tops of figures face uphill (common practice)
-  double min_loop_mm = 1.5;           // closed loops shorter than this on paper are dropped
-  double smoothing_mm = 0.25;         // generalisation tolerance on paper
+  bool labels_upright = false;  // false: tops of figures face uphill (common practice)
+  double min_loop_mm = 1.5;     // closed loops shorter than this on paper are dropped
+  double smoothing_mm = 0.25;   // generalisation tolerance on paper
   PointSymbol spot_symbol;
   LabelStyle spot_label;
   double spot_min_prominence_m = 20;
   bool spot_depressions = false;
-  double spot_round_m = 1;            // elevations rounded to this
+  double spot_round_m = 1;  // elevations rounded to this
 };
 
 struct GridStyle {
   Stroke line;
-  bool lines_across = true;      // false: ticks only
+  bool lines_across = true;  // false: ticks only
   double tick_mm = 2.0;
   LabelStyle label;
-  double label_major_size_pt = 9;   // principal digits
+  double label_major_size_pt = 9;  // principal digits
   Stroke graticule;
   LabelStyle graticule_label;
-  Stroke second_grid;               // optional second grid in its own colour
+  Stroke second_grid;  // optional second grid in its own colour
 };
 
 // Sheet furniture: frame, collar text, legend, scale bar, north diagram, notes.
@@ -215,18 +215,18 @@ struct FurnitureStyle {
   LabelStyle heading;
   LabelStyle body;
   LabelStyle small;
-  Colour ink;                // default ink for scale bar and diagrams
-  Colour accent;             // magnetic north, caution
-  double margin_mm = 10;     // paper edge to collar
-  double collar_mm = 12;     // collar width around the map frame (bottom collar may be larger)
-  double side_panel_mm = 70; // legend and notes panel right of the map (0 = below)
+  Colour ink;                 // default ink for scale bar and diagrams
+  Colour accent;              // magnetic north, caution
+  double margin_mm = 10;      // paper edge to collar
+  double collar_mm = 12;      // collar width around the map frame (bottom collar may be larger)
+  double side_panel_mm = 70;  // legend and notes panel right of the map (0 = below)
 };
 
 struct Style {
   std::string name;
   std::filesystem::path file;
   std::map<std::string, Colour> palette;
-  std::vector<Layer> layers;          // sorted by order (stable)
+  std::vector<Layer> layers;  // sorted by order (stable)
   ReliefStyle relief;
   ContourStyle contours;
   GridStyle grid;

@@ -22,13 +22,13 @@ struct FontKey {
 class Font {
  public:
   virtual ~Font() = default;
-  virtual hb_font_t* hb() const = 0;             // shaping font, scaled in font units
+  virtual hb_font_t* hb() const = 0;  // shaping font, scaled in font units
   virtual cairo_font_face_t* cairo_face() const = 0;
   virtual int units_per_em() const = 0;
   virtual bool has_glyph(char32_t codepoint) const = 0;
-  virtual const std::string& file() const = 0;   // the font file fontconfig chose
-  virtual double ascender_em() const = 0;        // typographic ascender, in ems (positive)
-  virtual double descender_em() const = 0;       // typographic descender, in ems (positive)
+  virtual const std::string& file() const = 0;  // the font file fontconfig chose
+  virtual double ascender_em() const = 0;       // typographic ascender, in ems (positive)
+  virtual double descender_em() const = 0;      // typographic descender, in ems (positive)
 };
 
 class FontCache {

@@ -16,16 +16,16 @@ namespace sheetmill::text {
 
 struct ShapedGlyph {
   uint32_t glyph_id = 0;
-  double x_mm = 0;        // pen position + offset, from the run's baseline start
+  double x_mm = 0;  // pen position + offset, from the run's baseline start
   double y_mm = 0;
   double advance_mm = 0;
-  uint32_t cluster = 0;   // byte offset into the source UTF-8
+  uint32_t cluster = 0;  // byte offset into the source UTF-8
 };
 
 struct ShapedRun {
   const Font* font = nullptr;
-  std::vector<ShapedGlyph> glyphs;   // x_mm relative to the whole text's start
-  uint32_t byte_begin = 0;           // this run's slice of the UTF-8 text
+  std::vector<ShapedGlyph> glyphs;  // x_mm relative to the whole text's start
+  uint32_t byte_begin = 0;          // this run's slice of the UTF-8 text
   uint32_t byte_end = 0;
 };
 
@@ -33,9 +33,9 @@ struct ShapedText {
   std::string utf8;
   double size_pt = 0;
   std::vector<ShapedRun> runs;
-  double width_mm = 0;       // total advance
-  double ascent_mm = 0;      // above the baseline (positive)
-  double descent_mm = 0;     // below the baseline (positive)
+  double width_mm = 0;    // total advance
+  double ascent_mm = 0;   // above the baseline (positive)
+  double descent_mm = 0;  // below the baseline (positive)
   double height_mm() const { return ascent_mm + descent_mm; }
   bool empty() const { return runs.empty(); }
 };
@@ -74,7 +74,7 @@ std::vector<PlacedGlyph> layout_on_path(const ShapedText& text, const Polyline& 
                                         double start_mm, double max_bend_deg = 30,
                                         double baseline_shift_mm = 0);
 
-void draw_placed_glyphs(cairo_t* cr, const ShapedText& text,
-                        const std::vector<PlacedGlyph>& glyphs, const TextPaint& paint);
+void draw_placed_glyphs(cairo_t* cr, const ShapedText& text, const std::vector<PlacedGlyph>& glyphs,
+                        const TextPaint& paint);
 
 }  // namespace sheetmill::text
