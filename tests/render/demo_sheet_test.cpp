@@ -104,3 +104,27 @@ TEST_CASE("village names and index contour values are real text on the demo shee
   }
   CHECK(index_values.size() >= 3);
 }
+
+TEST_CASE("the same sheet exported as GeoTIFF is georeferenced at the chosen dpi", "[render]") {
+  test::TempDir dir;
+  auto project = test::write_demo_project(dir);
+  auto tif = dir / "sheet.tif";
+  auto r = test::run_sheetmill(
+      {"--quiet", "render", project.string(), "-o", tif.string(), "--dpi", "100"});
+  INFO(r.err);
+  REQUIRE(r.exit_code == 0);
+  gdal_init();
+  DatasetPtr ds(GDALDataset::Open(tif.c_str(), GDAL_OF_RASTER));
+  REQUIRE(ds);
+  double gt[6];
+  REQUIRE(ds->GetGeoTransform(gt) == CE_None);
+  // At 1:25 000 a pixel of 1/100 in on paper is 25 000 x 0.254 mm = 6.35 m on the ground.
+  CHECK(gt[1] == Approx(6.35).epsilon(0.001));
+  CHECK(-gt[5] == Approx(6.35).epsilon(0.001));
+  const OGRSpatialReference* srs = ds->GetSpatialRef();
+  REQUIRE(srs);
+  CHECK(std::string(srs->GetAuthorityCode(nullptr)) == "32632");
+  // A2 landscape at 100 dpi: 594 mm x 420 mm -> 2339 x 1654 pixels.
+  CHECK(std::abs(ds->GetRasterXSize() - 2339) <= 1);
+  CHECK(std::abs(ds->GetRasterYSize() - 1654) <= 1);
+}
