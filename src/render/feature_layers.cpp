@@ -56,6 +56,26 @@ void line_obstacles(const Polyline& l, double half_width_mm, std::vector<text::Q
   }
 }
 
+// Footprint of an area symbol of an obstacle layer (page mm). Its outline always blocks labels;
+// a small area (a building: both sides of its box under kSmallAreaMm) blocks its whole box, since
+// for such shapes the box is close to the area itself. A large obstacle area blocks only along its
+// edge, so a name may still sit inside a wood or a lake whose layer is marked as an obstacle.
+constexpr double kSmallAreaMm = 10.0;
+void area_obstacles(const std::vector<Polyline>& rings, std::vector<text::Quad>& out) {
+  if (rings.empty() || rings.front().size() < 3) return;
+  Box box;
+  for (const Point& p : rings.front()) box.add(p);
+  if (box.width() <= kSmallAreaMm && box.height() <= kSmallAreaMm) {
+    out.push_back(text::box_quad(box));
+    return;
+  }
+  for (const Polyline& r : rings) {
+    Polyline closed = r;
+    closed.push_back(closed.front());
+    line_obstacles(closed, 0.1, out);
+  }
+}
+
 double symbol_half_width_mm(const style::LineSymbol& s) {
   double w = 0;
   for (const auto& st : s.strokes) w = std::max(w, std::abs(st.offset_mm) + st.width_mm / 2);
@@ -203,6 +223,7 @@ FeatureLayersResult prepare_feature_layers(const project::Project& project,
               result.name_candidates.push_back(std::move(*c));
           }
         }
+        if (layer.obstacle && (rule.area || rule.line)) area_obstacles(rings, result.obstacles);
         if (rule.line && !rule.area) {
           for (const Polyline& r : rings) {
             Polyline closed = r;

@@ -154,6 +154,29 @@ TEST_CASE("the open tile renders with the field style: layers drawn, names place
   CHECK(counts["places"].placed > 20);
   CHECK(counts["roads"].placed > 0);
 
+  // Names keep off the symbols of layers that block labels: no chosen (droppable) name footprint
+  // overlaps a small area of such a layer (the field style's buildings).
+  long small_areas = 0, obstacle_overlaps = 0;
+  for (const auto& layer : prepared.layers) {
+    if (!layer.layer->obstacle) continue;
+    for (const auto& rule : layer.rules) {
+      for (const auto& area : rule.areas) {
+        Box b;
+        for (const Point& p : area.front()) b.add(p);
+        if (b.width() > 10 || b.height() > 10) continue;
+        ++small_areas;
+        const text::Quad q = text::box_quad(b);
+        for (const auto& c : result.name_candidates) {
+          if (!c.chosen || !c.may_drop) continue;
+          for (const auto& f : c.placements[*c.chosen].footprint)
+            obstacle_overlaps += text::quads_overlap(f, q);
+        }
+      }
+    }
+  }
+  CHECK(small_areas > 0);
+  CHECK(obstacle_overlaps == 0);
+
   pdf::LayeredCanvas canvas(220, 220);
   render::draw_feature_layers(canvas, prepared, style);
   labels::draw_placed(canvas.begin_group("names"), result.name_candidates);
