@@ -104,7 +104,7 @@ void add_relief_commands(CLI::App& app, Action& action, const GlobalOptions& glo
     auto units = std::make_shared<std::string>("degrees");
     auto method = std::make_shared<std::string>("horn");
     CLI::App* cmd =
-        app.add_subcommand("slope", "Slope of a DEM into a Float32 GeoTIFF (nodata -9999)");
+        app.add_subcommand("slope", "Slope of a DEM into a Float32 GeoTIFF (holes 0 and masked)");
     add_dem_options(cmd, *in);
     cmd->add_option("--units", *units, "degrees or percent")
         ->check(CLI::IsMember({"degrees", "percent"}))

@@ -75,23 +75,37 @@ double metres_per_z_unit(GDALRasterBand& band, const OGRSpatialReference& srs,
   return 1.0;
 }
 
+GroundScale ground_scale(const OGRSpatialReference& srs) {
+  GroundScale g;
+  g.geographic = srs.IsGeographic();
+  if (!g.geographic) {
+    g.linear_unit_m = srs.GetLinearUnits();
+    if (!(g.linear_unit_m > 0)) g.linear_unit_m = 1.0;
+    return g;
+  }
+  OGRErr err = OGRERR_NONE;
+  g.semi_major_m = srs.GetSemiMajor(&err);
+  const double inv_f = srs.GetInvFlattening(&err);
+  const double f = inv_f > 0 ? 1.0 / inv_f : 0.0;
+  g.e2 = f * (2 - f);
+  g.rad_per_unit = srs.GetAngularUnits();  // radians per degree, usually
+  return g;
+}
+
 void set_ground_cell_size(Dem& dem, const OGRSpatialReference& srs) {
+  set_ground_cell_size(dem, ground_scale(srs));
+}
+
+void set_ground_cell_size(Dem& dem, const GroundScale& g) {
   const double* gt = dem.grid.geotransform;
   dem.row_cell_x_m.clear();
   dem.row_cell_y_m.clear();
-  if (!srs.IsGeographic()) {
-    double unit_m = srs.GetLinearUnits();
-    if (!(unit_m > 0)) unit_m = 1.0;
-    dem.cell_x_m = std::abs(gt[1]) * unit_m;
-    dem.cell_y_m = std::abs(gt[5]) * unit_m;
+  if (!g.geographic) {
+    dem.cell_x_m = std::abs(gt[1]) * g.linear_unit_m;
+    dem.cell_y_m = std::abs(gt[5]) * g.linear_unit_m;
     return;
   }
-  OGRErr err = OGRERR_NONE;
-  const double a = srs.GetSemiMajor(&err);
-  const double inv_f = srs.GetInvFlattening(&err);
-  const double f = inv_f > 0 ? 1.0 / inv_f : 0.0;
-  const double e2 = f * (2 - f);
-  const double rad_per_unit = srs.GetAngularUnits();  // radians per degree, usually
+  const double a = g.semi_major_m, e2 = g.e2, rad_per_unit = g.rad_per_unit;
   const double dlon = std::abs(gt[1]) * rad_per_unit;
   const double dlat = std::abs(gt[5]) * rad_per_unit;
   auto sides = [&](double lat_units, double& x_m, double& y_m) {

@@ -24,6 +24,8 @@ double metres_per_z_unit(GDALRasterBand& band, const OGRSpatialReference& srs,
 // geotransform interpreted in `srs`. Geographic cells are measured on the CRS's ellipsoid:
 // east-west N(phi) cos(phi) dlambda, north-south M(phi) dphi (radii of curvature in the prime
 // vertical and the meridian).
+GroundScale ground_scale(const OGRSpatialReference& srs);
+void set_ground_cell_size(Dem& dem, const GroundScale& scale);
 void set_ground_cell_size(Dem& dem, const OGRSpatialReference& srs);
 
 }  // namespace sheetmill::terrain::detail

@@ -39,6 +39,7 @@ DemSource::DemSource(const std::string& path, const DemReadOptions& options)
   srs_.exportToWkt(&wkt);
   grid_.crs_wkt = wkt ? wkt : "";
   CPLFree(wkt);
+  scale_ = detail::ground_scale(srs_);
   GDALRasterBand* band = ds_->GetRasterBand(1);
   double z_factor = detail::metres_per_z_unit(*band, srs_, options, path);
   int ok = 0;
@@ -77,23 +78,25 @@ void DemSource::read_rows_into(int row0, int rows, Dem& dem) const {
               (errors.last_failure().empty() ? std::string() : " (" + errors.last_failure() + ")"));
     }
   }
+  // Holes become NaN and values become metres. Branch-free loops, one per case, so the
+  // compiler vectorises them: this pass touches every cell of the window.
+  const float nan = std::numeric_limits<float>::quiet_NaN();
   const float nd = static_cast<float>(nodata_);
-  const bool nd_nan = std::isnan(nodata_);
-  const bool convert = mul_ != 1.0 || add_ != 0.0;
-  for (float& v : dem.z) {
-    if (has_nodata_ && (nd_nan ? std::isnan(v) : v == nd)) {
-      v = std::numeric_limits<float>::quiet_NaN();
-    } else if (convert) {
-      v = static_cast<float>(v * mul_ + add_);
-    }
+  const bool mark_holes = has_nodata_ && !std::isnan(nodata_);  // NaN nodata is NaN already
+  if (mark_holes) {
+    for (float& v : dem.z) v = v == nd ? nan : v;
   }
-  detail::set_ground_cell_size(dem, srs_);
+  if (mul_ != 1.0 || add_ != 0.0) {
+    const double mul = mul_, add = add_;
+    for (float& v : dem.z) v = static_cast<float>(v * mul + add);  // NaN stays NaN
+  }
+  detail::set_ground_cell_size(dem, scale_);
 }
 
 double DemSource::native_cell_m() const {
   Dem probe;
   probe.grid = grid_;
-  detail::set_ground_cell_size(probe, srs_);
+  detail::set_ground_cell_size(probe, scale_);
   return std::sqrt(probe.cell_x_m * probe.cell_y_m);
 }
 

@@ -4,6 +4,7 @@
 #include <cpl_string.h>
 
 #include <algorithm>
+#include <array>
 #include <chrono>
 #include <cmath>
 #include <functional>
@@ -40,7 +41,10 @@ DatasetPtr create_output(const std::string& path, const DemSource& src, int band
                       "compression \"" + options.compression + "\": expected zstd or deflate");
   }
   if (type == GDT_Float32) opts.SetNameValue("PREDICTOR", "3");
-  opts.SetNameValue("NUM_THREADS", "ALL_CPUS");
+  // One compression thread: for_each_band already keeps both cores busy (reading, shading and
+  // compressing different bands at once); GDAL's own compression pool on top of that
+  // oversubscribed them and measured slower (bench/relief/run).
+  opts.SetNameValue("NUM_THREADS", "1");
   opts.SetNameValue("BIGTIFF", "IF_SAFER");
   if (bands >= 3) opts.SetNameValue("PHOTOMETRIC", "RGB");
   if (bands == 4) opts.SetNameValue("ALPHA", "YES");  // unassociated (straight) alpha
@@ -56,8 +60,17 @@ DatasetPtr create_output(const std::string& path, const DemSource& src, int band
   double gt[6];
   std::copy(g.geotransform, g.geotransform + 6, gt);
   ds->SetGeoTransform(gt);
-  ds->SetProjection(g.crs_wkt.c_str());
+  ds->SetSpatialRef(&src.crs());  // the parsed CRS itself: no second WKT parse
   return ds;
+}
+
+// A per-dataset mask (0 = hole) inside the TIFF, not a side-car file (which the atomic rename
+// would leave behind).
+void create_internal_mask(GDALDataset& ds, const std::string& path) {
+  CPLConfigOptionSetter internal("GDAL_TIFF_INTERNAL_MASK", "YES", false);
+  if (ds.CreateMaskBand(GMF_PER_DATASET) != CE_None) {
+    throw_input_error(path, "cannot create the output's mask");
+  }
 }
 
 // Writes rows of one band (band 0 = the per-dataset mask).
@@ -73,14 +86,18 @@ void write_rows(GDALDataset& ds, int band, int row0, int rows, int width, GDALDa
   }
 }
 
-// Runs `band_fn(dem, first, count, row0)` for consecutive bands of rows: `dem` holds rows
-// [row0 - 1, row0 + count + 1) clipped to the raster, and the band's own rows start at local
-// row `first`. The next band is read in another thread while this one is computed and
-// written (the source is only ever touched by one thread at a time).
-template <class Fn>
+// Runs the raster in bands of rows as a three-stage pipeline, each stage in its own thread:
+// band k + 1 is read while band k is computed and band k - 1 is written (compressed on all
+// cores by GDAL). `compute(dem, first, count, row0, result)` fills `result` for rows
+// [row0, row0 + count): `dem` holds rows [row0 - 1, row0 + count + 1) clipped to the raster,
+// and the band's own rows start at local row `first`. `write(result, row0, count)` stores it.
+// The source and the output are each touched by one thread at a time; two DEM bands and two
+// results are alive at once, so memory is bounded by the band size, not the raster.
+template <class Result, class Compute, class Write>
 void for_each_band(const DemSource& src, GDALDataset& out, const ProductOptions& options,
-                   Fn&& band_fn) {
+                   Compute&& compute, Write&& write) {
   const int h = src.grid().height;
+  if (h <= 0) return;
   const int step = std::max(1, options.band_rows);
   auto read_band = [&src, h, step](int row0, Dem& dem) {
     const int count = std::min(step, h - row0);
@@ -90,20 +107,44 @@ void for_each_band(const DemSource& src, GDALDataset& out, const ProductOptions&
     // does not grow with the raster.
     src.dataset().FlushCache(false);
   };
-  Dem current, next;
-  if (h > 0) read_band(0, current);
-  for (int row0 = 0; row0 < h; row0 += step) {
-    const int count = std::min(step, h - row0);
-    std::future<void> prefetch;
+  auto write_band = [&](const Result& result, int row0) {
+    write(result, row0, std::min(step, h - row0));
+    out.FlushCache(false);  // compress and write this band's tiles now
+    if (options.progress) options.progress(static_cast<double>(std::min(h, row0 + step)) / h);
+  };
+  Dem dems[2];
+  Result results[2];
+  read_band(0, dems[0]);
+  std::future<void> reading, computing;
+  int k = 0;
+  for (int row0 = 0; row0 < h; row0 += step, ++k) {
+    if (reading.valid()) reading.get();  // band k is in dems[k % 2]
     if (row0 + step < h) {
-      prefetch = std::async(std::launch::async, read_band, row0 + step, std::ref(next));
+      reading = std::async(std::launch::async, read_band, row0 + step, std::ref(dems[(k + 1) % 2]));
     }
-    band_fn(static_cast<const Dem&>(current), row0 - std::max(0, row0 - 1), count, row0);
-    out.FlushCache(false);  // compress and write this band's tiles (on all cores) now
-    if (prefetch.valid()) prefetch.get();
-    std::swap(current, next);
-    if (options.progress) options.progress(static_cast<double>(row0 + count) / h);
+    const int count = std::min(step, h - row0);
+    computing = std::async(std::launch::async, [&, row0, count, k] {
+      compute(static_cast<const Dem&>(dems[k % 2]), row0 - std::max(0, row0 - 1), count, row0,
+              results[k % 2]);
+    });
+    if (k > 0) {
+      try {
+        write_band(results[(k + 1) % 2], row0 - step);
+      } catch (...) {
+        // Let the other stages finish with their buffers before they go out of scope.
+        if (reading.valid()) reading.wait();
+        computing.wait();
+        throw;
+      }
+    }
+    try {
+      computing.get();
+    } catch (...) {
+      if (reading.valid()) reading.wait();
+      throw;
+    }
   }
+  write_band(results[(k + 1) % 2], (k - 1) * step);
 }
 
 void finish(DatasetPtr& ds, AtomicOutput& out) {
@@ -130,15 +171,18 @@ void write_hillshade_raster(const std::string& dem_path, const std::string& out_
   DatasetPtr ds = create_output(out.temp_path().string(), src, 1, GDT_Byte, options);
   ds->GetRasterBand(1)->SetNoDataValue(0);
   const int w = src.grid().width;
-  std::vector<std::uint8_t> bytes;
-  for_each_band(src, *ds, options, [&](const Dem& dem, int first, int count, int row0) {
-    bytes.resize(static_cast<std::size_t>(w) * count);
-    detail::parallel_rows(count, [&](int b, int e) {
-      hillshade_rows(dem, params, first + b, first + e,
-                     bytes.data() + static_cast<std::size_t>(b) * w);
-    });
-    write_rows(*ds, 1, row0, count, w, GDT_Byte, bytes.data(), out_path);
-  });
+  for_each_band<std::vector<std::uint8_t>>(
+      src, *ds, options,
+      [&](const Dem& dem, int first, int count, int, std::vector<std::uint8_t>& bytes) {
+        bytes.resize(static_cast<std::size_t>(w) * count);
+        detail::parallel_rows(count, [&](int b, int e) {
+          hillshade_rows(dem, params, first + b, first + e,
+                         bytes.data() + static_cast<std::size_t>(b) * w);
+        });
+      },
+      [&](const std::vector<std::uint8_t>& bytes, int row0, int count) {
+        write_rows(*ds, 1, row0, count, w, GDT_Byte, bytes.data(), out_path);
+      });
   finish(ds, out);
 }
 
@@ -147,20 +191,34 @@ void write_slope_raster(const std::string& dem_path, const std::string& out_path
   DemSource src(dem_path, options.read);
   AtomicOutput out(out_path);
   DatasetPtr ds = create_output(out.temp_path().string(), src, 1, GDT_Float32, options);
-  ds->GetRasterBand(1)->SetNoDataValue(kSlopeNodata);
+  // Holes are 0, as in every raster product, and marked by a per-dataset mask rather than a
+  // nodata value: 0 is also the slope of flat ground (a lake, a plain), which must stay data.
+  create_internal_mask(*ds, out_path);
   const int w = src.grid().width;
-  std::vector<float> values;
-  for_each_band(src, *ds, options, [&](const Dem& dem, int first, int count, int row0) {
-    values.resize(static_cast<std::size_t>(w) * count);
-    detail::parallel_rows(count, [&](int b, int e) {
-      slope_rows(dem, params, first + b, first + e,
-                 values.data() + static_cast<std::size_t>(b) * w);
-    });
-    for (float& v : values) {
-      if (std::isnan(v)) v = static_cast<float>(kSlopeNodata);
-    }
-    write_rows(*ds, 1, row0, count, w, GDT_Float32, values.data(), out_path);
-  });
+  struct Band {
+    std::vector<float> values;
+    std::vector<std::uint8_t> mask;
+  };
+  for_each_band<Band>(
+      src, *ds, options,
+      [&](const Dem& dem, int first, int count, int, Band& band) {
+        const std::size_t n = static_cast<std::size_t>(w) * count;
+        band.values.resize(n);
+        band.mask.resize(n);
+        detail::parallel_rows(count, [&](int b, int e) {
+          slope_rows(dem, params, first + b, first + e,
+                     band.values.data() + static_cast<std::size_t>(b) * w);
+        });
+        for (std::size_t i = 0; i < n; ++i) {
+          const bool hole = std::isnan(band.values[i]);
+          band.mask[i] = hole ? 0 : 255;
+          if (hole) band.values[i] = 0.0f;
+        }
+      },
+      [&](const Band& band, int row0, int count) {
+        write_rows(*ds, 1, row0, count, w, GDT_Float32, band.values.data(), out_path);
+        write_rows(*ds, 0, row0, count, w, GDT_Byte, band.mask.data(), out_path);
+      });
   finish(ds, out);
 }
 
@@ -173,37 +231,37 @@ void write_tint_raster(const std::string& dem_path, const std::string& out_path,
   const int bands = rgba ? 4 : 3;
   DatasetPtr ds = create_output(out.temp_path().string(), src, bands, GDT_Byte, options);
   if (!rgba) {
-    // Inside the TIFF, not a side-car file (which the atomic rename would leave behind).
-    CPLConfigOptionSetter internal("GDAL_TIFF_INTERNAL_MASK", "YES", false);
-    if (ds->CreateMaskBand(GMF_PER_DATASET) != CE_None) {
-      throw_input_error(out_path, "cannot create the output's mask");
-    }
+    create_internal_mask(*ds, out_path);
   } else {
     ds->GetRasterBand(4)->SetColorInterpretation(GCI_AlphaBand);
   }
   const int w = src.grid().width;
-  std::vector<std::uint8_t> planes[4];
-  for_each_band(src, *ds, options, [&](const Dem& dem, int first, int count, int row0) {
-    ReliefImage img = render_relief(dem, params);
-    const std::size_t n = static_cast<std::size_t>(w) * count;
-    for (auto& p : planes) p.resize(n);
-    for (std::size_t i = 0; i < n; ++i) {
-      std::uint32_t px = img.argb[static_cast<std::size_t>(first) * w + i];
-      std::uint32_t a = px >> 24;
-      // Back from premultiplied to straight colour.
-      auto straight = [a](std::uint32_t v) {
-        return static_cast<std::uint8_t>(
-            a == 0 ? 0 : std::min<std::uint32_t>(255, (v * 255 + a / 2) / a));
-      };
-      planes[0][i] = straight((px >> 16) & 0xff);
-      planes[1][i] = straight((px >> 8) & 0xff);
-      planes[2][i] = straight(px & 0xff);
-      planes[3][i] = rgba ? static_cast<std::uint8_t>(a) : (a == 0 ? 0 : 255);
-    }
-    for (int b = 0; b < 3; ++b)
-      write_rows(*ds, b + 1, row0, count, w, GDT_Byte, planes[b].data(), out_path);
-    write_rows(*ds, rgba ? 4 : 0, row0, count, w, GDT_Byte, planes[3].data(), out_path);
-  });
+  using Planes = std::array<std::vector<std::uint8_t>, 4>;
+  for_each_band<Planes>(
+      src, *ds, options,
+      [&](const Dem& dem, int first, int count, int, Planes& planes) {
+        ReliefImage img = render_relief(dem, params);
+        const std::size_t n = static_cast<std::size_t>(w) * count;
+        for (auto& p : planes) p.resize(n);
+        for (std::size_t i = 0; i < n; ++i) {
+          std::uint32_t px = img.argb[static_cast<std::size_t>(first) * w + i];
+          std::uint32_t a = px >> 24;
+          // Back from premultiplied to straight colour.
+          auto straight = [a](std::uint32_t v) {
+            return static_cast<std::uint8_t>(
+                a == 0 ? 0 : std::min<std::uint32_t>(255, (v * 255 + a / 2) / a));
+          };
+          planes[0][i] = straight((px >> 16) & 0xff);
+          planes[1][i] = straight((px >> 8) & 0xff);
+          planes[2][i] = straight(px & 0xff);
+          planes[3][i] = rgba ? static_cast<std::uint8_t>(a) : (a == 0 ? 0 : 255);
+        }
+      },
+      [&](const Planes& planes, int row0, int count) {
+        for (int b = 0; b < 3; ++b)
+          write_rows(*ds, b + 1, row0, count, w, GDT_Byte, planes[b].data(), out_path);
+        write_rows(*ds, rgba ? 4 : 0, row0, count, w, GDT_Byte, planes[3].data(), out_path);
+      });
   finish(ds, out);
 }
 

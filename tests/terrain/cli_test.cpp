@@ -106,6 +106,46 @@ TEST_CASE("sheetmill slope in degrees and percent agrees with GDAL's slope", "[t
   }
 }
 
+TEST_CASE("sheetmill slope: holes are 0 and masked, flat ground is 0 and data", "[terrain]") {
+  // A plane rising 1 m per 25 m cell eastwards (atan(1/25) = 2.2906 deg, analytic) on the left
+  // half, a flat floor on the right half, and a 10 x 10 hole in the left half.
+  st::TempDir tmp("cli-slope-holes");
+  auto g = fixture::make_grid(120, 100, 440000, 6650000, 25.0, fixture::wkt_of(32633));
+  std::vector<float> z(120 * 100);
+  for (int r = 0; r < 100; ++r)
+    for (int c = 0; c < 120; ++c) z[r * 120 + c] = c < 60 ? 100.0f + c : 160.0f;
+  for (int r = 40; r < 50; ++r)
+    for (int c = 20; c < 30; ++c) z[r * 120 + c] = -9999.0f;
+  auto dem = tmp / "dem.tif";
+  fixture::write_geotiff(dem, g, z, -9999);
+  auto out = tmp / "slope.tif";
+  auto r = st::run_sheetmill({"slope", dem.string(), out.string()});
+  INFO(r.err);
+  REQUIRE(r.exit_code == 0);
+  DatasetPtr ds = open_out(out);
+  int has_nodata = 0;
+  ds->GetRasterBand(1)->GetNoDataValue(&has_nodata);
+  CHECK(has_nodata == 0);
+  CHECK(ds->GetRasterBand(1)->GetMaskFlags() == GMF_PER_DATASET);
+  std::vector<float> v(120 * 100);
+  std::vector<std::uint8_t> m(120 * 100);
+  REQUIRE(ds->GetRasterBand(1)->RasterIO(GF_Read, 0, 0, 120, 100, v.data(), 120, 100, GDT_Float32,
+                                         0, 0, nullptr) == CE_None);
+  REQUIRE(ds->GetRasterBand(1)->GetMaskBand()->RasterIO(GF_Read, 0, 0, 120, 100, m.data(), 120, 100,
+                                                        GDT_Byte, 0, 0, nullptr) == CE_None);
+  for (int rr = 40; rr < 50; ++rr)
+    for (int c = 20; c < 30; ++c) {
+      CHECK(v[rr * 120 + c] == 0.0f);
+      CHECK(m[rr * 120 + c] == 0);
+    }
+  CHECK(v[70 * 120 + 90] == 0.0f);  // flat floor: slope 0, and still data
+  CHECK(m[70 * 120 + 90] == 255);
+  CHECK(v[70 * 120 + 10] == Approx(2.2906).margin(0.001));
+  CHECK(m[70 * 120 + 10] == 255);
+  CHECK(m[45 * 120 + 19] == 255);  // next to the hole: computed from what exists
+  CHECK(!std::filesystem::exists(tmp / "slope.tif.aux.xml"));
+}
+
 TEST_CASE("sheetmill tint writes RGB with a mask, or RGBA", "[terrain]") {
   st::TempDir tmp("cli-tint");
   auto g = fixture::make_grid(300, 260, 440000, 6650000, 25.0, fixture::wkt_of(32633));

@@ -34,6 +34,14 @@ struct Dem {
   std::size_t valid_count() const;
 };
 
+// What the ground cell size needs from a CRS, read once: OGR's queries go through PROJ and
+// cost milliseconds each, too much to repeat for every band of a raster product.
+struct GroundScale {
+  bool geographic = false;
+  double linear_unit_m = 1;                           // projected CRS
+  double semi_major_m = 0, e2 = 0, rad_per_unit = 0;  // geographic CRS
+};
+
 struct DemReadOptions {
   // GDAL resampling name for warping: "bilinear" (default), "cubic", "cubicspline", "near".
   std::string resampling = "bilinear";

@@ -33,12 +33,15 @@ class DemSource {
   double native_cell_m() const;
   // The underlying dataset (for block sizes and metadata); owned by this object.
   GDALDataset& dataset() const { return *ds_; }
+  // The DEM's CRS (traditional GIS axis order).
+  const OGRSpatialReference& crs() const { return srs_; }
 
  private:
   std::string path_;
   DatasetPtr ds_;
   RasterGrid grid_;
   OGRSpatialReference srs_;
+  GroundScale scale_;
   double mul_ = 1, add_ = 0;
   bool has_nodata_ = false;
   double nodata_ = 0;

@@ -5,7 +5,8 @@
 // Output appears whole or not at all (written to a temporary file, renamed on success).
 //
 //   hillshade: Byte, 0 = nodata, 1 + 254 * illumination (see shade.hpp)
-//   slope:     Float32 degrees or percent, nodata -9999 (0 is a valid slope)
+//   slope:     Float32 degrees or percent; holes are 0 and masked by a per-dataset mask (no
+//              nodata value: 0 is also the slope of flat ground)
 //   tint:      Byte RGB with a per-dataset mask for holes, or RGBA with alpha 0 in holes
 
 #include <functional>
@@ -17,8 +18,6 @@
 #include "sheetmill/terrain/slope.hpp"
 
 namespace sheetmill::terrain {
-
-inline constexpr double kSlopeNodata = -9999.0;
 
 struct ProductOptions {
   DemReadOptions read;
