@@ -15,7 +15,9 @@
 #include "sheetmill/core/log.hpp"
 #include "sheetmill/project/project.hpp"
 #include "sheetmill/render/render.hpp"
+#include "sheetmill/sheet/tile_index.hpp"
 #include "sheetmill/style/style.hpp"
+#include "sheetmill/text/font.hpp"
 
 namespace sheetmill::batch {
 
@@ -73,11 +75,19 @@ int run_batch_command(const BatchRequest& req) {
   WorkerSetup setup = [&project, &style, &digest_inputs] {
     // In the worker process: datasets opened here stay open for all its sheets.
     auto digester = std::make_shared<InputDigester>(digest_inputs);
+    // The sheet outlines (for the layout and the diagrams) and the fonts, once per worker:
+    // with a national index of thousands of sheets, reading it for every sheet made each
+    // sheet slower the larger the index (bench/batch/run, variant C).
+    auto index = std::make_shared<sheet::TileIndexContents>(
+        sheet::read_tile_index(*project.tile_index, project.crs));
+    auto fonts = std::make_shared<text::FontCache>();
     SheetTasks tasks;
     tasks.digest = [digester](const SheetJob& j) { return digester->digest(j); };
-    tasks.render = [&project, &style](const SheetJob& j) {
+    tasks.render = [&project, &style, index, fonts](const SheetJob& j) {
       render::RenderOptions options;
       options.sheet_id = j.id;
+      options.tile_index = index.get();
+      options.fonts = fonts.get();
       return render::render_sheet(project, style, j.output, options);
     };
     return tasks;

@@ -15,9 +15,9 @@
 #include "sheetmill/core/gdal_env.hpp"
 #include "sheetmill/core/handles.hpp"
 #include "sheetmill/core/units.hpp"
+#include "sheetmill/sheet/sheet_info.hpp"
 
 namespace sheetmill::batch {
-
 namespace fs = std::filesystem;
 
 DigestInputs digest_inputs_for(const project::Project& p, const style::Style& style,
@@ -47,7 +47,7 @@ DigestInputs digest_inputs_for(const project::Project& p, const style::Style& st
   }
   if (p.tile_index) {
     // The sheet's neighbours in the index: their IDs and names are in the collar's diagrams.
-    in.vectors.push_back({"tile index", p.tile_index->path, p.tile_index->layer, "", true});
+    in.vectors.push_back({kTileIndexSource, p.tile_index->path, p.tile_index->layer, "", true});
   }
   in.dem_path = p.elevation.dem;
   in.index_crs_wkt = index_crs_wkt;
@@ -140,11 +140,14 @@ struct InputDigester::Impl {
     return vectors.emplace(v.name, std::move(ov)).first->second;
   }
 
-  std::string vector_part(const DigestInputs::Vector& v, const Box& footprint) {
+  // The features of `v` in `footprint` (index CRS), or all of them when it is null.
+  std::string vector_part(const DigestInputs::Vector& v, const Box* footprint) {
     OpenVector& ov = vector(v);
     if (ov.absent) return "absent";
-    Box b = transformed(footprint, ov.ct.get());
-    ov.layer->SetSpatialFilterRect(b.min_x, b.min_y, b.max_x, b.max_y);
+    if (footprint) {
+      Box b = transformed(*footprint, ov.ct.get());
+      ov.layer->SetSpatialFilterRect(b.min_x, b.min_y, b.max_x, b.max_y);
+    }
     ov.layer->ResetReading();
     // Order-independent: a rewrite of the file in another order is no change.
     std::vector<std::string> features;
@@ -171,6 +174,27 @@ struct InputDigester::Impl {
     all.update_field(fmt::format("{} features", features.size()));
     for (const auto& f : features) all.update(f);
     return all.hex();
+  }
+
+  // What the collar shows of the index: the neighbours (in `window`) and the location diagram
+  // (sheet::kLocationWholeIndex, kLocationReach): all sheets of a small index; for a large one
+  // the sheets within reach, and the index's extent and count.
+  std::string index_part(const DigestInputs::Vector& v, const SheetJob& job, const Box& window) {
+    OpenVector& ov = vector(v);
+    if (ov.absent) return "absent";
+    const GIntBig count = ov.layer->GetFeatureCount();
+    if (count <= static_cast<GIntBig>(sheet::kLocationWholeIndex)) return vector_part(v, nullptr);
+    const Box& f = job.footprint;
+    const double rx = sheet::kLocationReach * f.width(), ry = sheet::kLocationReach * f.height();
+    Box reach = Box::of(f.min_x - rx, f.min_y - ry, f.max_x + rx, f.max_y + ry);
+    reach.add({window.min_x, window.min_y});
+    reach.add({window.max_x, window.max_y});
+    OGREnvelope e;
+    if (ov.layer->GetExtent(&e, TRUE) != OGRERR_NONE) e = OGREnvelope();
+    Sha256 h;
+    h.update_field(fmt::format("{} sheets in {} {} {} {}", count, e.MinX, e.MinY, e.MaxX, e.MaxY));
+    h.update_field(vector_part(v, &reach));
+    return h.hex();
   }
 
   OpenDem& open_dem() {
@@ -264,8 +288,13 @@ SheetDigest InputDigester::digest(const SheetJob& job) {
     window = Box{job.footprint.min_x - dx, job.footprint.min_y - dy, job.footprint.max_x + dx,
                  job.footprint.max_y + dy};
   }
-  for (const auto& v : impl_->in.vectors)
-    d.parts["source:" + v.name] = impl_->vector_part(v, window);
+  for (const auto& v : impl_->in.vectors) {
+    if (v.name == kTileIndexSource) {
+      d.parts["source:" + v.name] = impl_->index_part(v, job, window);
+    } else {
+      d.parts["source:" + v.name] = impl_->vector_part(v, &window);
+    }
+  }
   if (!impl_->in.dem_path.empty()) d.parts["dem"] = impl_->dem_part(window);
   Sha256 all;
   for (const auto& [k, v] : d.parts) {

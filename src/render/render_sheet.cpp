@@ -1,4 +1,5 @@
 #include <chrono>
+#include <optional>
 
 #include "render/contour_layer.hpp"
 #include "render/relief_layer.hpp"
@@ -53,10 +54,17 @@ RenderReport render_sheet(const project::Project& project, const style::Style& s
   RenderReport report;
   report.output = output;
   log::WarningCollector warnings;
-  text::FontCache fonts;
+  std::optional<text::FontCache> own_fonts;
+  text::FontCache& fonts = options.fonts ? *options.fonts : own_fonts.emplace();
+  // Both the layout and the diagrams need the index: read it once (or take the batch's).
+  std::optional<sheet::TileIndexContents> own_index;
+  const sheet::TileIndexContents* tile_index = options.tile_index;
+  if (!tile_index && (options.sheet_id || project.extent.sheet_id) && project.tile_index) {
+    tile_index = &own_index.emplace(sheet::read_tile_index(*project.tile_index, project.crs));
+  }
 
   // Prepare: where the frame lies on the paper and on the ground.
-  sheet::Layout layout = sheet::compute_layout(project, style, options.sheet_id);
+  sheet::Layout layout = sheet::compute_layout(project, style, options.sheet_id, tile_index);
   const MapFrame& frame = layout.frame;
   pdf::LayeredCanvas canvas(layout.page_w_mm, layout.page_h_mm);
 
@@ -121,7 +129,7 @@ RenderReport render_sheet(const project::Project& project, const style::Style& s
   labels::draw_placed(cr, candidates);
   canvas.end_group();
 
-  sheet::SheetInfo info = sheet::describe_sheet(project, layout);
+  sheet::SheetInfo info = sheet::describe_sheet(project, layout, tile_index);
   info.contour_interval_m = sheet_contours.interval_m;
   sheet::draw_neatline_and_grid(canvas.begin_group("grid"), layout, style, fonts);
   canvas.end_group();

@@ -61,6 +61,34 @@ void fill_north(NorthInfo& n, const project::Project& project, const SheetCrs& c
   }
 }
 
+// The location diagram's outlines. A small index is drawn whole. A large one (a national series
+// of thousands) would be a grey smear at diagram size and would cost every sheet time in
+// proportion to the index, so it gets the sheets within a few sheet widths of this one, inside
+// the outline of the whole index's extent.
+void location_outlines(const TileIndexContents& index, const IndexSheet& sheet, SheetInfo& info) {
+  if (index.sheets.size() <= kLocationWholeIndex) {
+    for (const auto& o : index.sheets) info.index_outlines.push_back(o.outline);
+    info.location_caption = "Sheets of the index";
+    return;
+  }
+  Box all;
+  const Box near = Box::of(sheet.bounds.min_x - kLocationReach * sheet.bounds.width(),
+                           sheet.bounds.min_y - kLocationReach * sheet.bounds.height(),
+                           sheet.bounds.max_x + kLocationReach * sheet.bounds.width(),
+                           sheet.bounds.max_y + kLocationReach * sheet.bounds.height());
+  for (const auto& o : index.sheets) {
+    all.add({o.bounds.min_x, o.bounds.min_y});
+    all.add({o.bounds.max_x, o.bounds.max_y});
+    if (o.bounds.intersects(near)) info.index_outlines.push_back(o.outline);
+  }
+  info.index_outlines.push_back({{all.min_x, all.min_y},
+                                 {all.max_x, all.min_y},
+                                 {all.max_x, all.max_y},
+                                 {all.min_x, all.max_y}});
+  info.location_caption =
+      fmt::format("Nearby sheets, in the extent of all {}", index.sheets.size());
+}
+
 }  // namespace
 
 SheetInfo describe_sheet(const project::Project& project, const Layout& layout,
@@ -97,8 +125,7 @@ SheetInfo describe_sheet(const project::Project& project, const Layout& layout,
         if (std::abs(d.y) > 0.25 * s.bounds.height()) a.row = d.y > 0 ? -1 : 1;
         if (a.column != 0 || a.row != 0) info.neighbours.push_back(a);
       }
-      for (const auto& o : index->sheets) info.index_outlines.push_back(o.outline);
-      info.location_caption = "Sheets of the index";
+      location_outlines(*index, s, info);
     }
   }
   if (info.index_outlines.empty()) {

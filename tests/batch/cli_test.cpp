@@ -4,6 +4,7 @@
 #include <sys/wait.h>
 #include <unistd.h>
 
+#include <array>
 #include <catch2/catch.hpp>
 #include <chrono>
 #include <map>
@@ -200,4 +201,65 @@ TEST_CASE("hostile IDs in a tile index stay inside the output folder, duplicates
   CHECK(r.exit_code == 2);
   CHECK(r.err.find("\"dup\" and \"dup\"") != std::string::npos);
   CHECK_FALSE(fs::exists(out2));
+}
+
+// --single-file: one multi-page PDF with every sheet, in index order. Each page is checked
+// against the sheet's own PDF with poppler (pdftotext per page) and GDAL (the page's
+// georeferencing, read through the PDF driver's per-page subdatasets).
+TEST_CASE("sheetmill batch --single-file merges the sheets in index order, georeferenced",
+          "[batch]") {
+  test::TempDir dir("cli-merge");
+  test::DemoProject demo = test::make_demo_project(dir.path());
+  fs::path out = dir / "out";
+  auto r = test::run_sheetmill({"batch", demo.project.string(), "-o", out.string(), "-j", "2",
+                                "--single-file", "series.pdf"});
+  INFO(r.err);
+  REQUIRE(r.exit_code == 0);
+  fs::path merged = out / "series.pdf";
+  REQUIRE(fs::exists(merged));
+
+  // The index order, read from the index itself with OGR (feature order).
+  std::vector<std::string> ids;
+  {
+    gdal_init();
+    DatasetPtr ds(GDALDataset::Open(demo.index.c_str(), GDAL_OF_VECTOR));
+    REQUIRE(ds);
+    OGRLayer* layer = ds->GetLayer(0);
+    for (auto& f : *layer) ids.push_back(f->GetFieldAsString("sheet_id"));
+  }
+  REQUIRE(ids.size() >= 4);
+  auto info = test::run_command({"pdfinfo", merged.string()});
+  REQUIRE(info.exit_code == 0);
+  auto pages_at = info.out.find("Pages:");
+  REQUIRE(pages_at != std::string::npos);
+  CHECK(std::stoul(info.out.substr(pages_at + 6)) == ids.size());
+  auto text_of = [](const fs::path& pdf, int page) {
+    auto t = test::run_command({"pdftotext", "-f", std::to_string(page), "-l", std::to_string(page),
+                                "-layout", pdf.string(), "-"});
+    REQUIRE(t.exit_code == 0);
+    return t.out;
+  };
+  auto geotransform_of = [](const std::string& name) {
+    DatasetPtr ds(GDALDataset::Open(name.c_str(), GDAL_OF_RASTER));
+    REQUIRE(ds);
+    std::array<double, 6> gt{};
+    REQUIRE(ds->GetGeoTransform(gt.data()) == CE_None);
+    return gt;
+  };
+  for (std::size_t k = 0; k < ids.size(); ++k) {
+    INFO("page " << k + 1 << ", sheet " << ids[k]);
+    fs::path single = out / (ids[k] + ".pdf");
+    REQUIRE(fs::exists(single));
+    CHECK(text_of(merged, static_cast<int>(k) + 1) == text_of(single, 1));
+    if (k == 0 || k + 1 == ids.size()) {
+      auto a = geotransform_of("PDF:" + std::to_string(k + 1) + ":" + merged.string());
+      auto b = geotransform_of(single.string());
+      for (int i = 0; i < 6; ++i) CHECK(a[i] == Approx(b[i]).margin(1e-6));
+    }
+  }
+  // Nothing half-written is left beside it.
+  for (const auto& e : fs::directory_iterator(out)) {
+    INFO(e.path().filename().string());
+    CHECK(e.path().filename().string()[0] != '.');
+  }
 }

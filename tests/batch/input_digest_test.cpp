@@ -12,6 +12,7 @@
 #include "sheetmill/batch/runner.hpp"
 #include "sheetmill/batch/tile_index_io.hpp"
 #include "sheetmill/core/gdal_env.hpp"
+#include "sheetmill/sheet/sheet_info.hpp"
 #include "support/test_env.hpp"
 
 namespace fs = std::filesystem;
@@ -171,4 +172,88 @@ TEST_CASE("the DEM window under a sheet is part of its digest", "[batch]") {
   InputDigester d(in);
   CHECK(d.digest(west).hex == w0);
   CHECK(d.digest(east).hex != e0);
+}
+
+namespace {
+// Renames sheet `id` of the index in place, with GDAL.
+void rename_sheet(const fs::path& index, const std::string& id, const std::string& name) {
+  DatasetPtr ds(GDALDataset::Open(index.c_str(), GDAL_OF_VECTOR | GDAL_OF_UPDATE));
+  REQUIRE(ds);
+  OGRLayer* layer = ds->GetLayerByName("sheets");
+  REQUIRE(layer);
+  REQUIRE(layer->SetAttributeFilter(("sheet_id = '" + id + "'").c_str()) == OGRERR_NONE);
+  FeaturePtr f(layer->GetNextFeature());
+  REQUIRE(f);
+  f->SetField("name", name.c_str());
+  REQUIRE(layer->SetFeature(f.get()) == OGRERR_NONE);
+}
+
+// The digest of every sheet of the index at `path`, with the index as the only source.
+std::map<std::string, std::string> index_digests(const fs::path& path,
+                                                 std::vector<SheetJob>* jobs_out = nullptr) {
+  TileIndexContent index = read_tile_index(path.string(), "sheets", "sheet_id", "name");
+  DigestInputs in;
+  in.program_version = "test";
+  in.vectors = {{kTileIndexSource, path.string(), "sheets", "", true}};
+  in.index_crs_wkt = index.crs_wkt;
+  in.margin_m = 250;
+  InputDigester d(in);
+  std::map<std::string, std::string> out;
+  for (const auto& j : index.sheets) out[j.id] = d.digest(j).hex;
+  if (jobs_out) *jobs_out = index.sheets;
+  return out;
+}
+
+std::set<std::string> changed(const std::map<std::string, std::string>& a,
+                              const std::map<std::string, std::string>& b) {
+  std::set<std::string> ids;
+  for (const auto& [id, h] : a) {
+    if (b.at(id) != h) ids.insert(id);
+  }
+  return ids;
+}
+}  // namespace
+
+TEST_CASE("renaming an index sheet re-renders the sheets whose collar shows it", "[batch]") {
+  test::TempDir dir("digest-index");
+  IndexSpec spec;
+  spec.crs = "EPSG:32633";
+  spec.frame_width_mm = 40;  // 1 x 1 km at 1:25 000
+  spec.frame_height_mm = 40;
+
+  SECTION("a small index is drawn whole in every location diagram: all sheets change") {
+    spec.area = Box::of(500000, 5000000, 504000, 5003000);  // 4 x 3 = 12 sheets
+    write_tile_index(plan_tile_index(spec), dir / "small.gpkg", "sheets");
+    std::vector<SheetJob> jobs;
+    auto before = index_digests(dir / "small.gpkg", &jobs);
+    REQUIRE(jobs.size() == 12);
+    rename_sheet(dir / "small.gpkg", jobs.front().id, "Renamed");
+    CHECK(changed(before, index_digests(dir / "small.gpkg")).size() == 12);
+  }
+  SECTION("a large index: only sheets within the location diagram's reach change") {
+    spec.area = Box::of(500000, 5000000, 520000, 5020000);  // 20 x 20 = 400 sheets
+    write_tile_index(plan_tile_index(spec), dir / "large.gpkg", "sheets");
+    std::vector<SheetJob> jobs;
+    auto before = index_digests(dir / "large.gpkg", &jobs);
+    REQUIRE(jobs.size() == 400);
+    REQUIRE(jobs.size() > sheet::kLocationWholeIndex);
+    // The sheet whose centre is (510.5 km E, 5010.5 km N), renamed.
+    const SheetJob* target = nullptr;
+    for (const auto& j : jobs) {
+      if (j.footprint.contains({510500, 5010500})) target = &j;
+    }
+    REQUIRE(target);
+    rename_sheet(dir / "large.gpkg", target->id, "Renamed");
+    // Expected from the lattice alone: the diagram of a sheet shows the sheets its footprint,
+    // grown by kLocationReach (4) sheet sizes on every side, meets (touching counts), so those
+    // whose centres are at most 5 sheets away in each direction: an 11 x 11 block.
+    std::set<std::string> expected;
+    const Point c = target->footprint.centre();
+    for (const auto& j : jobs) {
+      Point d = j.footprint.centre() - c;
+      if (std::abs(d.x) <= 5000.5 && std::abs(d.y) <= 5000.5) expected.insert(j.id);
+    }
+    CHECK(expected.size() == 121);
+    CHECK(changed(before, index_digests(dir / "large.gpkg")) == expected);
+  }
 }

@@ -64,3 +64,42 @@ TEST_CASE("a declination stated by hand is used as stated", "[sheet]") {
   CHECK(info.north.date == "2026-12-01");
   CHECK(info.location_caption.find("47\u00B0 N") != std::string::npos);
 }
+
+// The location diagram of a national-size index: the sheets around this one and the index's
+// extent, not thousands of outlines (which would be a smear at diagram size and cost every
+// sheet time in proportion to the index).
+TEST_CASE("the location diagram of a large index shows the nearby sheets and the extent",
+          "[sheet]") {
+  auto p = utm_project();
+  p.magnetic.declination_deg = 1.0;
+  p.magnetic.date = "2026-12-01";
+  p.tile_index = project::TileIndex{};
+  // 30 x 30 sheets of 2 x 2 km, in memory.
+  TileIndexContents index;
+  for (int row = 0; row < 30; ++row)
+    for (int col = 0; col < 30; ++col) {
+      IndexSheet s;
+      s.id = "R" + std::to_string(row) + "C" + std::to_string(col);
+      double x = 500000 + 2000.0 * col, y = 5200000 + 2000.0 * row;
+      s.bounds = Box::of(x, y, x + 2000, y + 2000);
+      s.outline = {{x, y}, {x + 2000, y}, {x + 2000, y + 2000}, {x, y + 2000}};
+      index.sheets.push_back(s);
+    }
+  REQUIRE(index.sheets.size() > kLocationWholeIndex);
+  style::Style style;
+  auto L = compute_layout(p, style, std::nullopt);
+  L.index_sheet = index.sheets[10 * 30 + 2];  // row 10, column 2: near the west edge
+  auto info = describe_sheet(p, L, &index);
+  // Columns 0..7 (2 + 4 + 1 touching, clipped at the west edge) by rows 5..15 (11 rows):
+  // 8 x 11 = 88 sheets, and the extent's outline.
+  CHECK(info.index_outlines.size() == 88 + 1);
+  const auto& extent = info.index_outlines.back();
+  Box e;
+  for (Point q : extent) e.add(q);
+  CHECK(e.min_x == 500000);
+  CHECK(e.max_x == 560000);
+  CHECK(e.max_y == 5260000);
+  CHECK(info.location_caption.find("900") != std::string::npos);
+  // The neighbours for the adjoining-sheets diagram are the eight around it, as before.
+  CHECK(info.neighbours.size() == 8);
+}

@@ -24,6 +24,10 @@
 
 namespace sheetmill::batch {
 
+// The vector source named so is the tile index itself. Its digest part covers what the collar
+// shows of it: the neighbours, and the sheets of the location diagram (sheet_info.hpp).
+inline constexpr const char* kTileIndexSource = "tile index";
+
 struct DigestInputs {
   std::string program_version;
   std::vector<std::filesystem::path> files;  // hashed whole (project, style, model files)

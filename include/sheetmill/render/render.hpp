@@ -8,7 +8,9 @@
 #include <vector>
 
 #include "sheetmill/project/project.hpp"
+#include "sheetmill/sheet/tile_index.hpp"
 #include "sheetmill/style/style.hpp"
+#include "sheetmill/text/font.hpp"
 
 namespace sheetmill::render {
 
@@ -18,6 +20,11 @@ struct RenderOptions {
   OutputFormat format = OutputFormat::pdf;
   double raster_dpi = 150;              // PNG/GeoTIFF export
   std::optional<std::string> sheet_id;  // overrides the project's extent with an index sheet
+  // Read once and shared by every sheet a batch worker renders; null = read for this sheet.
+  // The index must be the project's own, read in the project's CRS.
+  const sheet::TileIndexContents* tile_index = nullptr;
+  // Fonts and shaping faces, likewise kept across a worker's sheets; null = a fresh cache.
+  text::FontCache* fonts = nullptr;
 };
 
 struct LayerReport {

@@ -58,6 +58,12 @@ struct SheetInfo {
   NorthInfo north;
 };
 
+// What the location diagram shows of a tile index: the whole index up to kLocationWholeIndex
+// sheets; beyond that, the sheets within kLocationReach sheet widths and heights of this one,
+// and the outline of the index's extent. The batch's change detection digests the same.
+inline constexpr std::size_t kLocationWholeIndex = 300;
+inline constexpr double kLocationReach = 4.0;
+
 SheetInfo describe_sheet(const project::Project& project, const Layout& layout,
                          const TileIndexContents* index = nullptr);
 
