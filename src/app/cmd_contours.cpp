@@ -7,6 +7,7 @@
 #include "app/commands.hpp"
 #include "sheetmill/contours/contour_layer.hpp"
 #include "sheetmill/core/log.hpp"
+#include "sheetmill/core/units.hpp"
 
 namespace sheetmill::app {
 
@@ -16,6 +17,8 @@ void add_contours_command(CLI::App& app, Action& action, const GlobalOptions&) {
     std::string out;
     contours::ContourParams params;
     bool raw = false;
+    bool labels = false;
+    std::string units = "auto";
   };
   auto args = std::make_shared<Args>();
   args->params.interval_m = 0;  // 0: proposed from the scale and the relief
@@ -24,8 +27,13 @@ void add_contours_command(CLI::App& app, Action& action, const GlobalOptions&) {
   cmd->add_option("DEM", args->dem, "Elevation raster (any GDAL raster)")->required();
   cmd->add_option("OUT", args->out, "Output GeoPackage (.gpkg)")->required();
   cmd->add_option("--interval", args->params.interval_m,
-                  "Contour interval in metres (default: proposed from the scale and relief)");
-  cmd->add_option("--base", args->params.base_m, "Level the intervals count from, metres")
+                  "Contour interval, in --units (default: proposed from the scale and relief)");
+  cmd->add_option("--base", args->params.base_m, "Level the intervals count from, in --units")
+      ->capture_default_str();
+  cmd->add_option("--units", args->units,
+                  "Unit of the interval, base, elevation field and labels: auto (the DEM's "
+                  "vertical unit), m, ft or us-ft")
+      ->check(CLI::IsMember({"auto", "m", "ft", "us-ft"}))
       ->capture_default_str();
   cmd->add_option("--index-every", args->params.index_every, "Every Nth line is an index contour")
       ->capture_default_str();
@@ -40,11 +48,21 @@ void add_contours_command(CLI::App& app, Action& action, const GlobalOptions&) {
   cmd->add_flag("--half-interval", args->params.supplementary,
                 "Add half-interval lines where the ground is gentle");
   cmd->add_flag("--raw", args->raw, "Write the generator's lines without smoothing or thinning");
+  cmd->add_flag("--labels", args->labels,
+                "Also place index-contour labels at --scale (layer contour_labels: elevation, "
+                "text, angle_deg, up_deg)");
   cmd->callback([&action, args] {
     action = [args] {
-      auto r = contours::contour_file(args->dem, args->out, args->params, !args->raw);
-      log::info("contours: wrote {} ({} lines at {} m, {} vertices, {:.1f} km)", args->out, r.lines,
-                r.interval_m, r.vertices, r.length_m / 1000);
+      contours::ContourFileOptions options;
+      options.prepare = !args->raw;
+      options.labels = args->labels;
+      if (args->units == "m") options.unit_m = 1.0;
+      if (args->units == "ft") options.unit_m = kMetresPerFoot;
+      if (args->units == "us-ft") options.unit_m = kMetresPerUsSurveyFoot;
+      auto r = contours::contour_file(args->dem, args->out, args->params, options);
+      log::info("contours: wrote {} ({} lines at {:g} {}, {} vertices, {:.1f} km, {} labels)",
+                args->out, r.lines, r.interval, r.unit.symbol, r.vertices, r.length_m / 1000,
+                r.labels);
       return 0;
     };
   });

@@ -139,9 +139,18 @@ text::TextPaint paint_of(const style::LabelStyle& ls) {
 
 }  // namespace
 
+std::string contour_label_text(const ContourLine& line, const style::ContourStyle& style,
+                               double unit_m) {
+  const style::LabelStyle& ls = style.label;
+  std::string value = elevation_text(line.elevation_m / unit_m, 0.01, ls.text_template);
+  if (ls.upper_case) std::transform(value.begin(), value.end(), value.begin(), ::toupper);
+  return value;
+}
+
 ContourLabels contour_label_candidates(const std::vector<ContourLine>& lines,
                                        const terrain::Dem& dem, const MapFrame& frame,
-                                       const style::ContourStyle& style, text::FontCache& fonts) {
+                                       const style::ContourStyle& style, text::FontCache& fonts,
+                                       double unit_m) {
   ContourLabels out;
   const style::LabelStyle& ls = style.label;
   const double spacing = std::max(style.label_spacing_mm, 5.0);
@@ -157,8 +166,7 @@ ContourLabels contour_label_candidates(const std::vector<ContourLine>& lines,
   for (std::size_t li = 0; li < lines.size(); ++li) {
     const ContourLine& line = lines[li];
     if (!line.index || line.supplementary || line.ground.size() < 2) continue;
-    std::string value = elevation_text(line.elevation_m, 0.01, ls.text_template);
-    if (ls.upper_case) std::transform(value.begin(), value.end(), value.begin(), ::toupper);
+    std::string value = contour_label_text(line, style, unit_m);
     auto& st = shaped[value];
     if (!st) {
       st = std::make_shared<text::ShapedText>(
@@ -232,14 +240,14 @@ ContourLabels contour_label_candidates(const std::vector<ContourLine>& lines,
 std::vector<labels::Candidate> label_candidates(const std::vector<ContourLine>& lines,
                                                 const terrain::Dem& dem, const MapFrame& frame,
                                                 const style::ContourStyle& style,
-                                                text::FontCache& fonts) {
-  return contour_label_candidates(lines, dem, frame, style, fonts).candidates;
+                                                text::FontCache& fonts, double unit_m) {
+  return contour_label_candidates(lines, dem, frame, style, fonts, unit_m).candidates;
 }
 
 std::vector<labels::Candidate> spot_label_candidates(const std::vector<SpotHeight>& spots,
                                                      const MapFrame& frame,
                                                      const style::ContourStyle& style,
-                                                     text::FontCache& fonts) {
+                                                     text::FontCache& fonts, double unit_m) {
   std::vector<labels::Candidate> out;
   const style::LabelStyle& ls = style.spot_label;
   text::TextPaint paint = paint_of(ls);
@@ -250,7 +258,7 @@ std::vector<labels::Candidate> spot_label_candidates(const std::vector<SpotHeigh
     if (!page.contains(at)) continue;
     double round_m = spot.kind == SpotHeight::Kind::control ? std::min(style.spot_round_m, 0.1)
                                                             : style.spot_round_m;
-    std::string value = elevation_text(spot.elevation_m, round_m, ls.text_template);
+    std::string value = elevation_text(spot.elevation_m / unit_m, round_m, ls.text_template);
     if (!spot.label.empty()) value = spot.label + " " + value;
     auto st = std::make_shared<text::ShapedText>(
         text::shape(fonts, ls.font, ls.size_pt, value, ls.letter_spacing_em));

@@ -1,24 +1,94 @@
 #include "sheetmill/contours/contour_layer.hpp"
 
+#include <cpl_conv.h>
 #include <ogr_spatialref.h>
 #include <ogrsf_frmts.h>
 
+#include <chrono>
 #include <cmath>
 
 #include "contours/dem_sampling.hpp"
 #include "contours/orient.hpp"
+#include "sheetmill/contours/contour_labels.hpp"
 #include "sheetmill/contours/generate.hpp"
 #include "sheetmill/contours/prepare.hpp"
 #include "sheetmill/core/atomic_file.hpp"
 #include "sheetmill/core/error.hpp"
 #include "sheetmill/core/gdal_env.hpp"
 #include "sheetmill/core/log.hpp"
+#include "sheetmill/labels/candidate.hpp"
 #include "sheetmill/terrain/dem_source.hpp"
+#include "sheetmill/text/collision_index.hpp"
 
 namespace sheetmill::contours {
 
+namespace {
+
+void write_label_layer(GDALDataset& ds, const std::vector<LabelPoint>& labels,
+                       const OGRSpatialReference* srs, const std::filesystem::path& out) {
+  GdalErrorScope errors;
+  const char* lco[] = {"SPATIAL_INDEX=YES", nullptr};
+  OGRLayer* layer = ds.CreateLayer("contour_labels", const_cast<OGRSpatialReference*>(srs),
+                                   wkbPoint, const_cast<char**>(lco));
+  if (!layer) throw_input_error(out.string(), "cannot create the layer: " + errors.last_failure());
+  OGRFieldDefn elev("elevation", OFTReal), text("text", OFTString), angle("angle_deg", OFTReal),
+      up("up_deg", OFTReal);
+  for (OGRFieldDefn* f : {&elev, &text, &angle, &up}) layer->CreateField(f);
+  ds.StartTransaction();
+  OGRFeatureDefn* defn = layer->GetLayerDefn();
+  for (const auto& l : labels) {
+    FeaturePtr f(OGRFeature::CreateFeature(defn));
+    f->SetField(0, l.elevation);
+    f->SetField(1, l.text.c_str());
+    f->SetField(2, l.angle_deg);
+    f->SetField(3, l.up_deg);
+    f->SetGeometryDirectly(new OGRPoint(l.ground.x, l.ground.y));
+    if (layer->CreateFeature(f.get()) != OGRERR_NONE)
+      throw_input_error(out.string(), "cannot write a feature: " + errors.last_failure());
+  }
+  if (ds.CommitTransaction() != OGRERR_NONE)
+    throw_input_error(out.string(), "cannot write the GeoPackage: " + errors.last_failure());
+}
+
+// Page (y down, clockwise angles) to ground (y up, counter-clockwise), degrees in [0, 360).
+double ground_degrees(double page_x, double page_y) {
+  double a = std::atan2(-page_y, page_x) * 180.0 / M_PI;
+  return a < 0 ? a + 360.0 : a;
+}
+
+}  // namespace
+
+std::vector<LabelPoint> place_labels(const std::vector<ContourLine>& lines, const terrain::Dem& dem,
+                                     const ContourParams& params, const style::ContourStyle& style,
+                                     double unit_m) {
+  MapFrame frame;
+  frame.scale_denominator = params.scale_denominator;
+  frame.ground = dem.grid.bounds();
+  frame.crs_wkt = dem.grid.crs_wkt;
+  text::FontCache fonts;
+  ContourLabels cl = contour_label_candidates(lines, dem, frame, style, fonts, unit_m);
+  text::CollisionIndex index(frame.page_box_mm());
+  labels::place(cl.candidates, index);
+  std::vector<LabelPoint> out;
+  for (std::size_t i = 0; i < cl.candidates.size(); ++i) {
+    const auto& chosen = cl.candidates[i].chosen;
+    if (!chosen) continue;
+    const LabelGeometry& g = cl.geometry[i][*chosen];
+    const ContourLine& line = lines[g.line];
+    LabelPoint p;
+    p.ground = frame.to_ground(g.centre_mm);
+    p.elevation = std::round(line.elevation_m / unit_m * 1e6) / 1e6;  // whole levels
+    p.text = contour_label_text(line, style, unit_m);
+    p.angle_deg = ground_degrees(std::cos(g.angle_rad), std::sin(g.angle_rad));
+    p.up_deg = ground_degrees(g.up_mm.x, g.up_mm.y);
+    out.push_back(std::move(p));
+  }
+  return out;
+}
+
 void write_geopackage(const std::filesystem::path& out, const std::vector<ContourLine>& lines,
-                      const std::string& crs_wkt) {
+                      const std::string& crs_wkt, const std::vector<LabelPoint>* labels,
+                      double unit_m) {
   gdal_init();
   GdalErrorScope errors;
   GDALDriver* drv = GetGDALDriverManager()->GetDriverByName("GPKG");
@@ -46,7 +116,8 @@ void write_geopackage(const std::filesystem::path& out, const std::vector<Contou
     OGRFeatureDefn* defn = layer->GetLayerDefn();
     for (const auto& l : lines) {
       FeaturePtr f(OGRFeature::CreateFeature(defn));
-      f->SetField(0, l.elevation_m);
+      // Levels are whole multiples of the interval in the unit: no 99.99999 ft.
+      f->SetField(0, std::round(l.elevation_m / unit_m * 1e6) / 1e6);
       f->SetField(1, l.index ? 1 : 0);
       f->SetField(2, l.depression ? 1 : 0);
       f->SetField(3, l.supplementary ? 1 : 0);
@@ -61,6 +132,7 @@ void write_geopackage(const std::filesystem::path& out, const std::vector<Contou
     }
     if (ds->CommitTransaction() != OGRERR_NONE)
       throw_input_error(out.string(), "cannot write the GeoPackage: " + errors.last_failure());
+    if (labels) write_label_layer(*ds, *labels, has_srs ? &srs : nullptr, out);
     errors.clear();
     ds.reset();  // closes the file (GDAL 3.6 reports close errors through CPLError only)
     if (!errors.last_failure().empty())
@@ -150,23 +222,48 @@ std::vector<ContourLine> read_layer(const std::string& path, const std::string& 
 }
 
 ContourFileReport contour_file(const std::string& dem_path, const std::filesystem::path& out,
-                               ContourParams params, bool prepare) {
+                               ContourParams params, const ContourFileOptions& options) {
+  // Compressed GeoTIFF blocks are decoded on all cores (GDAL's multi-threaded decoding, read
+  // when the dataset opens); a user's own setting wins.
+  CPLConfigOptionSetter threads("GDAL_NUM_THREADS", "ALL_CPUS", true);
   terrain::DemSource source(dem_path);
+  if (options.labels && source.crs().IsGeographic()) {
+    throw_input_error(dem_path,
+                      "--labels needs a DEM in a projected CRS (labels are placed in mm at the "
+                      "scale); warp it to one first");
+  }
+  using Clock = std::chrono::steady_clock;
+  auto since = [](Clock::time_point t) {
+    return std::chrono::duration<double>(Clock::now() - t).count();
+  };
+  auto t0 = Clock::now();
   terrain::Dem dem = source.read_all();
+  const double t_read = since(t0);
   ContourFileReport report;
+  const double unit_m = options.unit_m ? *options.unit_m : terrain::vertical_unit_m(dem_path);
+  report.unit = height_unit(unit_m);
+  params.interval_m *= unit_m;
+  params.base_m *= unit_m;
   if (params.interval_m == 0) {
     auto [lo, hi] = elevation_range(dem);
     if (!std::isnan(lo) && hi > lo) {
-      params.interval_m = propose_interval_m(params.scale_denominator, hi - lo);
-      log::info("contour interval {} m proposed for 1:{:.0f} and {:.0f} m of relief",
-                params.interval_m, params.scale_denominator, hi - lo);
+      params.interval_m = propose_interval_m(params.scale_denominator, hi - lo, unit_m);
+      log::info("contour interval {:g} {} proposed for 1:{:.0f} and {:.0f} m of relief",
+                params.interval_m / unit_m, report.unit.symbol, params.scale_denominator, hi - lo);
     } else {
       params.interval_m = 1;  // generate() names the real problem below
     }
   }
   std::vector<ContourLine> lines;
+  t0 = Clock::now();
+  double t_prepare = 0;
   try {
-    lines = prepare ? generate(dem, params) : generate_raw(dem, params);
+    lines = generate_raw(dem, params);
+    if (options.prepare) {
+      auto t1 = Clock::now();
+      prepare_for_print(lines, params, detail::DemSampler(dem).cell_m());
+      t_prepare = since(t1);
+    }
   } catch (const Error& e) {
     if (e.kind() == Error::Kind::input && e.where().file.empty()) {
       SourceLocation where = e.where();
@@ -175,8 +272,19 @@ ContourFileReport contour_file(const std::string& dem_path, const std::filesyste
     }
     throw;
   }
-  write_geopackage(out, lines, dem.grid.crs_wkt);
-  report.interval_m = params.interval_m;
+  const double t_generate = since(t0) - t_prepare;
+  t0 = Clock::now();
+  std::vector<LabelPoint> labels;
+  if (options.labels) labels = place_labels(lines, dem, params, options.style, unit_m);
+  const double t_labels = since(t0);
+  t0 = Clock::now();
+  write_geopackage(out, lines, dem.grid.crs_wkt, options.labels ? &labels : nullptr, unit_m);
+  log::debug(
+      "contours: read {:.2f} s, generated {:.2f} s, prepared {:.2f} s, labels {:.2f} s, "
+      "written {:.2f} s",
+      t_read, t_generate, t_prepare, t_labels, since(t0));
+  report.labels = static_cast<long>(labels.size());
+  report.interval = params.interval_m / unit_m;
   report.lines = static_cast<long>(lines.size());
   for (const auto& l : lines) {
     report.vertices += static_cast<long>(l.ground.size());

@@ -8,9 +8,11 @@
 #include <cmath>
 #include <limits>
 #include <string>
+#include <thread>
 
 #include "contours/dem_sampling.hpp"
 #include "contours/orient.hpp"
+#include "sheetmill/contours/gdal_contours.hpp"
 #include "sheetmill/contours/prepare.hpp"
 #include "sheetmill/core/error.hpp"
 #include "sheetmill/core/gdal_env.hpp"
@@ -100,9 +102,10 @@ std::pair<double, double> elevation_range(const terrain::Dem& dem) {
   return {lo, hi};
 }
 
-double propose_interval_m(double scale_denominator, double relief_m) {
+double propose_interval_m(double scale_denominator, double relief_m, double unit_m) {
   double lo = scale_denominator / 5000, hi = scale_denominator / 2500;
-  double ideal = std::clamp(relief_m / 40, lo, hi);
+  // A round number in the unit heights are shown in (a 20 ft interval, not 6.096 m).
+  double ideal = std::clamp(relief_m / 40, lo, hi) / unit_m;
   // Round to the nearest of 1, 2, 2.5, 5 x 10^k (in ratio, not difference).
   double best = 1, best_err = std::numeric_limits<double>::infinity();
   int k0 = static_cast<int>(std::floor(std::log10(ideal)));
@@ -113,7 +116,7 @@ double propose_interval_m(double scale_denominator, double relief_m) {
       if (err < best_err) best = v, best_err = err;
     }
   }
-  return best;
+  return best * unit_m;
 }
 
 std::vector<ContourLine> generate_raw(const terrain::Dem& dem, const ContourParams& params) {
@@ -137,69 +140,40 @@ std::vector<ContourLine> generate_raw(const terrain::Dem& dem, const ContourPara
                           std::to_string(hi - lo) + " of relief; choose a larger interval");
   }
 
-  gdal_init();
-  GdalErrorScope errors;
-  GDALDriver* mem = GetGDALDriverManager()->GetDriverByName("MEM");
-  GDALDriver* vmem = GetGDALDriverManager()->GetDriverByName("Memory");
-  if (!mem || !vmem) throw_internal_error("GDAL's MEM and Memory drivers are not available");
-
-  // Wrap the caller's values without copying: a MEM band over the same memory.
-  DatasetPtr raster(mem->Create("", dem.width(), dem.height(), 0, GDT_Float32, nullptr));
-  char pointer[64] = {0};
-  CPLPrintPointer(pointer, const_cast<float*>(dem.z.data()), sizeof(pointer) - 1);
-  std::string data_option = std::string("DATAPOINTER=") + pointer;
-  const char* band_options[] = {data_option.c_str(), nullptr};
-  if (!raster || raster->AddBand(GDT_Float32, const_cast<char**>(band_options)) != CE_None) {
-    throw_internal_error("cannot wrap the DEM in a GDAL band: " + errors.last_failure());
-  }
-  double gt[6];
-  std::copy(dem.grid.geotransform, dem.grid.geotransform + 6, gt);
-  raster->SetGeoTransform(gt);
-  GDALRasterBand* band = raster->GetRasterBand(1);
-
-  DatasetPtr vector(vmem->Create("", 0, 0, 0, GDT_Unknown, nullptr));
-  OGRLayer* layer = vector ? vector->CreateLayer("contours", nullptr, wkbLineString) : nullptr;
-  if (!layer) throw_internal_error("cannot create an in-memory contour layer");
-  OGRFieldDefn id_field("id", OFTInteger);
-  OGRFieldDefn elev_field("elev", OFTReal);
-  layer->CreateField(&id_field);
-  layer->CreateField(&elev_field);
-
-  // NaN cells are nodata to GDAL's generator only when a nodata value is set; any NaN works as
-  // the marker because the generator tests for NaN itself.
-  std::string interval = "LEVEL_INTERVAL=" + CPLString().Printf("%.17g", step);
-  std::string base = "LEVEL_BASE=" + CPLString().Printf("%.17g", params.base_m);
-  const char* options[] = {interval.c_str(), base.c_str(), "ID_FIELD=0",
-                           "ELEV_FIELD=1",   "NODATA=nan", nullptr};
-  if (GDALContourGenerateEx(band, layer, const_cast<char**>(options), nullptr, nullptr) !=
-      CE_None) {
-    throw_internal_error("GDAL's contour generator failed: " + errors.last_failure());
-  }
-
   detail::DemSampler sampler(dem);
-  std::vector<ContourLine> lines;
-  lines.reserve(static_cast<std::size_t>(layer->GetFeatureCount()));
-  std::vector<ContourLine> supplementary;
-  layer->ResetReading();
-  std::vector<OGRRawPoint> raw;
-  for (auto& feature : *layer) {
-    const OGRGeometry* geom = feature->GetGeometryRef();
-    if (!geom || wkbFlatten(geom->getGeometryType()) != wkbLineString) continue;
-    const OGRLineString* ls = geom->toLineString();
-    int n = ls->getNumPoints();
-    if (n < 2) continue;
-    raw.resize(n);
-    ls->getPoints(raw.data());
-    ContourLine line;
-    line.elevation_m = feature->GetFieldAsDouble(1);
-    line.ground.resize(n);
-    for (int i = 0; i < n; ++i) line.ground[i] = {raw[i].x, raw[i].y};
-    if (n >= 4 && raw[0].x == raw[n - 1].x && raw[0].y == raw[n - 1].y) {
-      line.closed = true;
-      line.ground.pop_back();
+  std::vector<detail::RawContour> raw = detail::gdal_contours(dem, step, params.base_m);
+  // Orientation samples the DEM along every raw vertex: done for all lines on both cores first.
+  std::vector<ContourLine> all(raw.size());
+  auto orient = [&](std::size_t begin, std::size_t end) {
+    for (std::size_t i = begin; i < end; ++i) {
+      ContourLine& line = all[i];
+      line.elevation_m = raw[i].elevation_m;
+      line.ground = std::move(raw[i].points);
+      const std::size_t n = line.ground.size();
+      if (n >= 4 && line.ground.front().x == line.ground.back().x &&
+          line.ground.front().y == line.ground.back().y) {
+        line.closed = true;
+        line.ground.pop_back();
+      }
+      if (line.ground.size() < 2) continue;
+      detail::orient_uphill_left(line, sampler);
+      if (line.closed) line.depression = line.uphill_known && detail::signed_area(line.ground) < 0;
     }
-    detail::orient_uphill_left(line, sampler);
-    if (line.closed) line.depression = line.uphill_known && detail::signed_area(line.ground) < 0;
+  };
+  {
+    // Split by vertex count, not line count: a few long lines hold most of the work.
+    std::size_t total = 0, half = 0, cut = 0;
+    for (const auto& r : raw) total += r.points.size();
+    while (cut < raw.size() && 2 * half < total) half += raw[cut++].points.size();
+    std::thread other(orient, cut, raw.size());
+    orient(0, cut);
+    other.join();
+  }
+  std::vector<ContourLine> lines;
+  lines.reserve(all.size());
+  std::vector<ContourLine> supplementary;
+  for (auto& line : all) {
+    if (line.ground.size() < 2) continue;
     long k = std::lround((line.elevation_m - params.base_m) / step);
     if (params.supplementary && (k % 2 != 0)) {
       line.supplementary = true;

@@ -71,8 +71,15 @@ std::vector<double> segment_clearance(const std::vector<ContourLine>& lines, std
         if (gap < t.self_gap_m) return;
       }
       const ContourLine& o = lines[r.line];
-      double d = detail::segment_distance(a, b, detail::seg_a(o, r.seg), detail::seg_b(o, r.seg));
-      best = std::min(best, d);
+      const Point c = detail::seg_a(o, r.seg), d = detail::seg_b(o, r.seg);
+      // The boxes' gap bounds the distance from below: most grid neighbours are out of reach
+      // and need no exact distance (a profile's largest item before this test).
+      const double gx = std::max(
+          {0.0, std::min(c.x, d.x) - std::max(a.x, b.x), std::min(a.x, b.x) - std::max(c.x, d.x)});
+      const double gy = std::max(
+          {0.0, std::min(c.y, d.y) - std::max(a.y, b.y), std::min(a.y, b.y) - std::max(c.y, d.y)});
+      if (gx * gx + gy * gy >= best * best) return;
+      best = std::min(best, detail::segment_distance(a, b, c, d));
     });
     clear[s] = best;
   }
@@ -155,28 +162,20 @@ void simplify_range(const Polyline& p, const std::vector<double>& allowed, std::
   }
 }
 
-void prepare_line(std::vector<ContourLine>& lines, std::size_t li, const SegmentGrid& grid,
-                  const Tolerances& t, std::vector<Polyline>& result) {
-  const ContourLine& l = lines[li];
-  std::size_t n = l.ground.size();
-  auto arc = arclengths(l);
-  auto clear = segment_clearance(lines, li, arc, grid, t);
-  std::size_t ns = clear.size();
-  std::vector<double> cap(n, t.cap_m);
-  for (std::size_t i = 0; i < n; ++i) {
-    double c = t.reach_m;
-    if (i < ns) c = std::min(c, clear[i]);
-    if (i > 0) c = std::min(c, clear[i - 1]);
-    if (l.closed && i == 0 && ns > 0) c = std::min(c, clear[ns - 1]);
-    cap[i] = std::min(t.cap_m, kClearanceShare * c);
-  }
-  Polyline moved = smooth(l, arc, t.sigma_m);
+// The line smoothed (Gaussian, sigma scaled by f), each vertex's move capped, then thinned by
+// Douglas-Peucker within what the cap leaves.
+Polyline smoothed_and_thinned(const ContourLine& l, const std::vector<double>& arc,
+                              const std::vector<double>& cap_in, const Tolerances& t, double f) {
+  const std::size_t n = l.ground.size();
+  std::vector<double> cap(cap_in);
+  for (double& c : cap) c *= f;
+  Polyline moved = smooth(l, arc, t.sigma_m * f);
   std::vector<double> allowed(n);
   for (std::size_t i = 0; i < n; ++i) {
     Point d = moved[i] - l.ground[i];
     double len = length(d);
     if (len > cap[i]) moved[i] = l.ground[i] + d * (cap[i] / len);
-    allowed[i] = std::min(t.simplify_m, std::max(0.0, cap[i] - std::min(len, cap[i])));
+    allowed[i] = std::min(t.simplify_m * f, std::max(0.0, cap[i] - std::min(len, cap[i])));
   }
   std::vector<char> keep(n, 0);
   if (!l.closed) {
@@ -199,7 +198,38 @@ void prepare_line(std::vector<ContourLine>& lines, std::size_t li, const Segment
   for (std::size_t i = 0; i < n; ++i)
     if (keep[i]) out.push_back(moved[i]);
   if (l.closed && out.size() < 3) out = moved;
-  result[li] = std::move(out);
+  return out;
+}
+
+void prepare_line(std::vector<ContourLine>& lines, std::size_t li, const SegmentGrid& grid,
+                  const Tolerances& t, std::vector<Polyline>& result) {
+  const ContourLine& l = lines[li];
+  std::size_t n = l.ground.size();
+  auto arc = arclengths(l);
+  auto clear = segment_clearance(lines, li, arc, grid, t);
+  std::size_t ns = clear.size();
+  std::vector<double> cap(n, t.cap_m);
+  for (std::size_t i = 0; i < n; ++i) {
+    double c = t.reach_m;
+    if (i < ns) c = std::min(c, clear[i]);
+    if (i > 0) c = std::min(c, clear[i - 1]);
+    if (l.closed && i == 0 && ns > 0) c = std::min(c, clear[ns - 1]);
+    cap[i] = std::min(t.cap_m, kClearanceShare * c);
+  }
+  // A tight bend of one line (a narrow spur or re-entrant) can fold over itself when smoothed:
+  // its own nearby segments are neighbours, not obstacles, in the clearance. Such a line is
+  // smoothed again with half the tolerance, twice at most, before its raw geometry is kept.
+  for (double f : {1.0, 0.5, 0.25}) {
+    Polyline out = smoothed_and_thinned(l, arc, cap, t, f);
+    ContourLine candidate;
+    candidate.closed = l.closed;
+    candidate.ground = out;
+    if (find_crossings({candidate}).empty()) {
+      result[li] = std::move(out);
+      return;
+    }
+  }
+  result[li] = l.ground;
 }
 
 }  // namespace

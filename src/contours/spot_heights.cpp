@@ -90,6 +90,14 @@ std::vector<SpotHeight> find_depression_bottoms(const terrain::Dem& dem, double 
   return prominent_cells(dem, min_depth_m, -1, SpotHeight::Kind::depression);
 }
 
+HeightUnit height_unit(double metres_per_unit) {
+  if (std::abs(metres_per_unit - 1.0) < 1e-9 || !(metres_per_unit > 0)) return {};
+  if (std::abs(metres_per_unit - 0.3048) < 1e-6 || std::abs(metres_per_unit - 1200.0 / 3937) < 1e-6)
+    return {metres_per_unit, "ft", "feet"};
+  return {metres_per_unit, fmt::format("x {:g} m", metres_per_unit),
+          fmt::format("units of {:g} m", metres_per_unit)};
+}
+
 std::string elevation_text(double elevation_m, double round_m, const std::string& text_template) {
   if (!(round_m > 0)) round_m = 1;
   double v = std::round(elevation_m / round_m) * round_m;

@@ -42,6 +42,8 @@ SheetContours build_contours(const project::Project& project, const style::Style
 
   bool have_dem = !project.elevation.dem.empty();
   if (have_dem) {
+    out.unit = contours::height_unit(
+        terrain::vertical_unit_m(project.elevation.dem, dem_options(project)));
     out.dem = terrain::read_dem_window(project.elevation.dem, contour_grid(project, frame),
                                        dem_options(project));
   }
@@ -51,9 +53,10 @@ SheetContours build_contours(const project::Project& project, const style::Style
     params.interval_m = *cs.interval_m;
   } else if (have_dem && out.dem.valid_count() > 0) {
     auto [lo, hi] = contours::elevation_range(out.dem);
-    params.interval_m = contours::propose_interval_m(frame.scale_denominator, hi - lo);
-    log::info("contour interval {} m proposed from the scale and {:.0f} m of relief",
-              params.interval_m, hi - lo);
+    params.interval_m =
+        contours::propose_interval_m(frame.scale_denominator, hi - lo, out.unit.metres);
+    log::info("contour interval {:g} {} proposed from the scale and {:.0f} m of relief",
+              params.interval_m / out.unit.metres, out.unit.symbol, hi - lo);
   } else {
     return out;
   }
@@ -73,9 +76,9 @@ SheetContours build_contours(const project::Project& project, const style::Style
   // Contours do not cross a lake surface.
   contours::clip_out_polygons(out.lines, water);
   if (!dem_has_data) return out;
-  out.labels = contours::label_candidates(out.lines, out.dem, frame, cs, fonts);
+  out.labels = contours::label_candidates(out.lines, out.dem, frame, cs, fonts, out.unit.metres);
   out.spots = contours::find_summits(out.dem, cs.spot_min_prominence_m);
-  for (auto& c : contours::spot_label_candidates(out.spots, frame, cs, fonts)) {
+  for (auto& c : contours::spot_label_candidates(out.spots, frame, cs, fonts, out.unit.metres)) {
     out.labels.push_back(std::move(c));
   }
   return out;

@@ -17,6 +17,7 @@ namespace sheetmill::render {
 
 struct SheetContours {
   double interval_m = 0;
+  contours::HeightUnit unit;  // heights are shown in the DEM's vertical unit
   std::vector<contours::ContourLine> lines;
   terrain::Dem dem;                         // the grid they came from (for uphill labels)
   std::vector<contours::SpotHeight> spots;  // summits from the DEM

@@ -131,6 +131,9 @@ RenderReport render_sheet(const project::Project& project, const style::Style& s
 
   sheet::SheetInfo info = sheet::describe_sheet(project, layout, tile_index);
   info.contour_interval_m = sheet_contours.interval_m;
+  info.height_unit_m = sheet_contours.unit.metres;
+  info.height_unit_symbol = sheet_contours.unit.symbol;
+  info.height_unit_name = sheet_contours.unit.name;
   sheet::draw_neatline_and_grid(canvas.begin_group("grid"), layout, style, fonts);
   canvas.end_group();
   sheet::draw_collar(canvas.begin_group("collar"), layout, project, style, info,

@@ -2,6 +2,8 @@
 
 #include <fmt/format.h>
 
+#include <cmath>
+
 #include "sheet/typeset.hpp"
 #include "sheetmill/core/units.hpp"
 #include "sheetmill/sheet/north_diagram.hpp"
@@ -42,7 +44,9 @@ void draw_notes(cairo_t* cr, const Box& box, const project::Project& project,
   std::vector<std::string> notes;
   if (info.contour_interval_m > 0) {
     notes.push_back(
-        fmt::format("Contour interval {:g} m. Heights in metres{}.", info.contour_interval_m,
+        fmt::format("Contour interval {:g} {}. Heights in {}{}.",
+                    std::round(info.contour_interval_m / info.height_unit_m * 1e6) / 1e6,
+                    info.height_unit_symbol, info.height_unit_name,
                     info.vertical_datum.empty() ? "" : " above " + info.vertical_datum));
   }
   std::string code = info.epsg ? fmt::format(" (EPSG:{})", info.epsg) : "";

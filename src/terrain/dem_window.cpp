@@ -194,6 +194,14 @@ Dem read_dem_window(const std::string& path, const RasterGrid& target,
   return dem;
 }
 
+double vertical_unit_m(const std::string& path, const DemReadOptions& options) {
+  DatasetPtr src = open_raster(path);
+  if (src->GetRasterCount() < 1) throw_input_error(path, "the raster has no bands");
+  OGRSpatialReference srs;
+  if (const OGRSpatialReference* own = src->GetSpatialRef()) srs = *own;
+  return detail::metres_per_z_unit(*src->GetRasterBand(1), srs, options, path);
+}
+
 double native_cell_m(const std::string& path, const DemReadOptions& options) {
   DatasetPtr src = open_raster(path);
   OGRSpatialReference srs = detail::dem_crs(*src, options, path);

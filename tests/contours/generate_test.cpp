@@ -129,3 +129,42 @@ TEST_CASE("proposed interval follows the scale and the relief", "[contours]") {
   double mid = propose_interval_m(25000, 300);  // 300 / 40 = 7.5 -> nearest of 5, 10 by ratio
   CHECK((mid == 5 || mid == 10));
 }
+
+// Supplementary (half-interval) contours appear only where the ground is gentle. The surface
+// rises 1 m per 50 m west of x = 2000 (slope 1.15 deg) and 1 m per 5 m east of it (11.3 deg),
+// with a slight northward tilt so the lines are not grid-aligned; the style's limit is 3 deg.
+TEST_CASE("half-interval contours only in gentle ground, at half-interval levels", "[contours]") {
+  auto z = [](double x, double y) {
+    double east = x < 2000 ? 0.02 * x : 40 + 0.2 * (x - 2000);
+    return 100 + east + 0.001 * y;
+  };
+  auto dem = synthetic::make_dem(400, 300, 10, 0, 3000, z);
+  ContourParams p;
+  p.interval_m = 10;
+  p.supplementary = true;
+  p.supplementary_max_slope_deg = 3;
+  auto lines = generate(dem, p);
+  int supplementary = 0, regular_east = 0;
+  for (const auto& l : lines) {
+    double level = (l.elevation_m - p.base_m) / p.interval_m;
+    if (!l.supplementary) {
+      CHECK(level == Approx(std::round(level)).margin(1e-9));
+      for (Point q : l.ground) regular_east += q.x > 2100;
+      continue;
+    }
+    ++supplementary;
+    INFO("supplementary line at " << l.elevation_m);
+    // At a half level (k + 0.5) x interval, never an index line, and only in the gentle west
+    // (the analytic slope there is 0.02; the smoothed line may lean a cell into the bend).
+    CHECK(level - std::floor(level) == Approx(0.5).margin(1e-9));
+    CHECK_FALSE(l.index);
+    for (Point q : l.ground) CHECK(q.x < 2000 + 20);
+  }
+  // West of the bend: 40 m of rise = 4 half levels (105 ... 135); east: none, although there
+  // are regular lines there.
+  CHECK(supplementary >= 4);
+  CHECK(regular_east > 0);
+  // Without the option: none at all.
+  p.supplementary = false;
+  for (const auto& l : generate(dem, p)) CHECK_FALSE(l.supplementary);
+}

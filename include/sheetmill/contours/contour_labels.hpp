@@ -39,20 +39,28 @@ struct ContourLabels {
   std::vector<std::vector<LabelGeometry>> geometry;  // [candidate][placement]
 };
 
+// `unit_m` is the metres per unit of the figures (0.3048 for a DEM in feet): values are shown
+// in the DEM's own vertical unit.
 ContourLabels contour_label_candidates(const std::vector<ContourLine>& lines,
                                        const terrain::Dem& dem, const MapFrame& frame,
-                                       const style::ContourStyle& style, text::FontCache& fonts);
+                                       const style::ContourStyle& style, text::FontCache& fonts,
+                                       double unit_m = 1.0);
+
+// The figures of an index contour's label, in units of `unit_m` metres.
+std::string contour_label_text(const ContourLine& line, const style::ContourStyle& style,
+                               double unit_m = 1.0);
 
 // The brief's name: the candidates alone.
 std::vector<labels::Candidate> label_candidates(const std::vector<ContourLine>& lines,
                                                 const terrain::Dem& dem, const MapFrame& frame,
                                                 const style::ContourStyle& style,
-                                                text::FontCache& fonts);
+                                                text::FontCache& fonts, double unit_m = 1.0);
 
 // Spot heights: the figures beside the dot, right of it first, then left, above, below.
+// Spot elevations are rounded to style.spot_round_m units of `unit_m` metres.
 std::vector<labels::Candidate> spot_label_candidates(const std::vector<SpotHeight>& spots,
                                                      const MapFrame& frame,
                                                      const style::ContourStyle& style,
-                                                     text::FontCache& fonts);
+                                                     text::FontCache& fonts, double unit_m = 1.0);
 
 }  // namespace sheetmill::contours

@@ -33,4 +33,13 @@ std::vector<SpotHeight> find_depression_bottoms(const terrain::Dem& dem, double 
 // {elevation_m} (or {ele}); the template's other text is kept.
 std::string elevation_text(double elevation_m, double round_m, const std::string& text_template);
 
+// The unit heights are shown in on a sheet: metres, or feet when the DEM's values are in feet
+// (international or US survey: both are shown as "ft").
+struct HeightUnit {
+  double metres = 1.0;  // metres per unit
+  std::string symbol = "m";
+  std::string name = "metres";
+};
+HeightUnit height_unit(double metres_per_unit);
+
 }  // namespace sheetmill::contours

@@ -48,6 +48,10 @@ struct SheetInfo {
   std::vector<std::vector<Point>> index_outlines;  // every index sheet, ground (location diagram)
   std::string location_caption;   // what index_outlines shows ("Sheets of the index", ...)
   double contour_interval_m = 0;  // 0: no contours on this sheet
+  // The unit heights and the interval are shown in (the DEM's vertical unit).
+  double height_unit_m = 1;
+  std::string height_unit_symbol = "m";
+  std::string height_unit_name = "metres";
   std::string vertical_datum;
   std::string crs_name;
   std::string datum_name;

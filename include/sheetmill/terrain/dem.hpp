@@ -66,4 +66,8 @@ Dem read_dem_window(const std::string& path, const RasterGrid& target,
 // for geographic DEMs), for choosing a working resolution.
 double native_cell_m(const std::string& path, const DemReadOptions& options = {});
 
+// Metres per unit of the DEM's values: options.vertical_unit when stated, else the band's unit
+// type, else the vertical part of a compound CRS, else 1. Sheets show heights in this unit.
+double vertical_unit_m(const std::string& path, const DemReadOptions& options = {});
+
 }  // namespace sheetmill::terrain
