@@ -334,3 +334,48 @@ TEST_CASE("contour labels in the demo PDF face uphill and keep apart", "[render]
         overlaps += found[i].box_pt.expanded(-0.25).intersects(found[j].box_pt.expanded(-0.25));
   CHECK(overlaps == 0);
 }
+
+// A DEM whose values are feet (the band's unit type says so): the sheet shows its contour
+// interval and heights in feet (on A3: an A4 sheet at this scale has no room for the notes).
+TEST_CASE("a DEM in feet gives a sheet in feet", "[render]") {
+  test::TempDir dir("feet-sheet");
+  gdal_init();
+  // The demo DEM's middle 6 x 4 km, in feet, written with GDAL.
+  DatasetPtr src(GDALDataset::Open((test::demo_area() / "dem.tif").c_str(), GDAL_OF_RASTER));
+  REQUIRE(src);
+  double gt[6];
+  REQUIRE(src->GetGeoTransform(gt) == CE_None);
+  const int c0 = 1400, r0 = 1100, w = 1200, h = 800;  // 5 m cells
+  std::vector<float> z(static_cast<std::size_t>(w) * h);
+  REQUIRE(src->GetRasterBand(1)->RasterIO(GF_Read, c0, r0, w, h, z.data(), w, h, GDT_Float32, 0, 0,
+                                          nullptr) == CE_None);
+  for (float& v : z) v = static_cast<float>(v / kMetresPerFoot);
+  GDALDriver* drv = GetGDALDriverManager()->GetDriverByName("GTiff");
+  fs::path feet = dir / "feet.tif";
+  {
+    DatasetPtr out(drv->Create(feet.c_str(), w, h, 1, GDT_Float32, nullptr));
+    double ogt[6] = {gt[0] + c0 * gt[1], gt[1], 0, gt[3] + r0 * gt[5], 0, gt[5]};
+    out->SetGeoTransform(ogt);
+    out->SetSpatialRef(src->GetSpatialRef());
+    out->GetRasterBand(1)->SetUnitType("ft");
+    REQUIRE(out->GetRasterBand(1)->RasterIO(GF_Write, 0, 0, w, h, z.data(), w, h, GDT_Float32, 0, 0,
+                                            nullptr) == CE_None);
+  }
+  std::string text = test::read_text(test::source_dir() / "demo_area" / "project.yaml");
+  text = std::regex_replace(text, std::regex("generated/dem.tif"), feet.string());
+  text = std::regex_replace(text, std::regex("generated/"), test::demo_area().string() + "/");
+  text = std::regex_replace(text, std::regex("\\.\\./styles/"),
+                            (test::source_dir() / "styles").string() + "/");
+  text = std::regex_replace(text, std::regex("size: A2"), "size: A3");
+  text = std::regex_replace(text, std::regex("interval: 10m"), "interval: 20ft");
+  test::write_text(dir / "project.yaml", text);
+  auto r = test::run_sheetmill(
+      {"render", (dir / "project.yaml").string(), "-o", (dir / "sheet.pdf").string()});
+  INFO(r.err);
+  REQUIRE(r.exit_code == 0);
+  auto txt = test::run_command({"pdftotext", "-raw", (dir / "sheet.pdf").string(), "-"});
+  REQUIRE(txt.exit_code == 0);
+  CHECK(txt.out.find("Contour interval 20 ft.") != std::string::npos);
+  CHECK(txt.out.find("Heights in feet above the demo datum") != std::string::npos);
+  CHECK(txt.out.find("Contour interval 6.096") == std::string::npos);
+}
