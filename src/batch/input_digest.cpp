@@ -179,20 +179,33 @@ struct InputDigester::Impl {
   // What the collar shows of the index: the neighbours (in `window`) and the location diagram
   // (sheet::kLocationWholeIndex, kLocationReach): all sheets of a small index; for a large one
   // the sheets within reach, and the index's extent and count.
+  // The index's own summary, the same for every sheet: computed once per digester (a worker's
+  // batch), so a large index does not cost each sheet a pass over it.
+  std::optional<GIntBig> index_count;
+  std::string index_summary;
+
   std::string index_part(const DigestInputs::Vector& v, const SheetJob& job, const Box& window) {
     OpenVector& ov = vector(v);
     if (ov.absent) return "absent";
-    const GIntBig count = ov.layer->GetFeatureCount();
-    if (count <= static_cast<GIntBig>(sheet::kLocationWholeIndex)) return vector_part(v, nullptr);
+    if (!index_count) {
+      index_count = ov.layer->GetFeatureCount();
+      if (*index_count <= static_cast<GIntBig>(sheet::kLocationWholeIndex)) {
+        index_summary = vector_part(v, nullptr);  // every sheet shows the whole index
+      } else {
+        OGREnvelope e;
+        if (ov.layer->GetExtent(&e, TRUE) != OGRERR_NONE) e = OGREnvelope();
+        index_summary =
+            fmt::format("{} sheets in {} {} {} {}", *index_count, e.MinX, e.MinY, e.MaxX, e.MaxY);
+      }
+    }
+    if (*index_count <= static_cast<GIntBig>(sheet::kLocationWholeIndex)) return index_summary;
     const Box& f = job.footprint;
     const double rx = sheet::kLocationReach * f.width(), ry = sheet::kLocationReach * f.height();
     Box reach = Box::of(f.min_x - rx, f.min_y - ry, f.max_x + rx, f.max_y + ry);
     reach.add({window.min_x, window.min_y});
     reach.add({window.max_x, window.max_y});
-    OGREnvelope e;
-    if (ov.layer->GetExtent(&e, TRUE) != OGRERR_NONE) e = OGREnvelope();
     Sha256 h;
-    h.update_field(fmt::format("{} sheets in {} {} {} {}", count, e.MinX, e.MinY, e.MaxX, e.MaxY));
+    h.update_field(index_summary);
     h.update_field(vector_part(v, &reach));
     return h.hex();
   }
