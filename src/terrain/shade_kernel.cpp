@@ -16,8 +16,8 @@ namespace hn = hwy::HWY_NAMESPACE;
 // The constants of one row, broadcast once per row.
 template <class D>
 struct ShadeVectors {
-  hn::Vec<D> two, one, zero, half, scale, one_and_half, h;
-  hn::Vec<D> kx, ky, sin_alt, cos_alt, sa_ca, ca_ca;
+  hn::Vec<D> two, one, zero, half, scale, one_and_half;
+  hn::Vec<D> kx, ky, sin_alt, cos_alt, sa_ca, ca_ca, hc;
   explicit ShadeVectors(D d, const ShadeCoefficients& k)
       : two(hn::Set(d, 2.0f)),
         one(hn::Set(d, 1.0f)),
@@ -25,13 +25,13 @@ struct ShadeVectors {
         half(hn::Set(d, 0.5f)),
         scale(hn::Set(d, 254.0f)),
         one_and_half(hn::Set(d, 1.5f)),
-        h(hn::Set(d, 0.70710678118654752f)),
         kx(hn::Set(d, k.kx)),
         ky(hn::Set(d, k.ky)),
         sin_alt(hn::Set(d, k.sin_alt)),
         cos_alt(hn::Set(d, k.cos_alt)),
         sa_ca(hn::Set(d, k.sin_az_cos_alt)),
-        ca_ca(hn::Set(d, k.cos_az_cos_alt)) {}
+        ca_ca(hn::Set(d, k.cos_az_cos_alt)),
+        hc(hn::Set(d, 0.70710678118654752f * k.cos_alt)) {}
 };
 
 // Shades the Lanes(d) cells starting at column c (1 <= c, c + Lanes(d) <= width - 1) and
@@ -70,19 +70,16 @@ HWY_INLINE bool shade_vector(D d, const ShadeVectors<D>& v, const float* above, 
     const auto num = hn::Sub(v.sin_alt, hn::Add(hn::Mul(p, v.sa_ca), hn::Mul(q, v.ca_ca)));
     illum = hn::Div(num, hn::Sqrt(hn::Add(v.one, s)));
   } else {
-    const auto c225 =
-        hn::Max(hn::Add(v.sin_alt, hn::Mul(hn::Mul(hn::Add(p, q), v.h), v.cos_alt)), v.zero);
+    const auto c225 = hn::Max(hn::Add(v.sin_alt, hn::Mul(hn::Add(p, q), v.hc)), v.zero);
     const auto c270 = hn::Max(hn::Add(v.sin_alt, hn::Mul(p, v.cos_alt)), v.zero);
-    const auto c315 =
-        hn::Max(hn::Add(v.sin_alt, hn::Mul(hn::Mul(hn::Sub(p, q), v.h), v.cos_alt)), v.zero);
+    const auto c315 = hn::Max(hn::Add(v.sin_alt, hn::Mul(hn::Sub(p, q), v.hc)), v.zero);
     const auto c360 = hn::Max(hn::Sub(v.sin_alt, hn::Mul(q, v.cos_alt)), v.zero);
     const auto pq = hn::Mul(p, q);
     const auto half_s = hn::Mul(s, v.half);
     auto sum = hn::Add(hn::Mul(hn::Add(half_s, pq), c225), hn::Mul(pp, c270));
     sum = hn::Add(sum, hn::Mul(hn::Sub(half_s, pq), c315));
     sum = hn::Add(sum, hn::Mul(qq, c360));
-    const auto mean = hn::Div(sum, hn::Mul(s, v.two));
-    illum = hn::Div(mean, hn::Sqrt(hn::Add(v.one, s)));
+    illum = hn::Div(sum, hn::Mul(hn::Mul(s, v.two), hn::Sqrt(hn::Add(v.one, s))));
     illum = hn::IfThenElse(hn::Eq(s, v.zero), v.sin_alt, illum);
   }
   // 1 + 254 x + 0.5 folded into one addition, then truncation = rounding (v >= 1.5). The

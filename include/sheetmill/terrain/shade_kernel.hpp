@@ -38,14 +38,16 @@ inline float illumination_multi(float p, float q, const ShadeCoefficients& k) {
   constexpr float h = 0.70710678118654752f;  // sqrt(2) / 2
   float s = p * p + q * q;
   if (s == 0.0f) return k.sin_alt;
-  float c225 = std::fmax(k.sin_alt + ((p + q) * h) * k.cos_alt, 0.0f);
+  const float hc = h * k.cos_alt;  // one product for both diagonal lights
+  float c225 = std::fmax(k.sin_alt + (p + q) * hc, 0.0f);
   float c270 = std::fmax(k.sin_alt + p * k.cos_alt, 0.0f);
-  float c315 = std::fmax(k.sin_alt + ((p - q) * h) * k.cos_alt, 0.0f);
+  float c315 = std::fmax(k.sin_alt + (p - q) * hc, 0.0f);
   float c360 = std::fmax(k.sin_alt - q * k.cos_alt, 0.0f);
   float pq = p * q;
   float half_s = s * 0.5f;
   float sum = (((half_s + pq) * c225 + (p * p) * c270) + (half_s - pq) * c315) + (q * q) * c360;
-  return (sum / (s * 2.0f)) / std::sqrt(1.0f + s);
+  // One division: (sum / 2s) / sqrt(1 + s) as sum / (2s sqrt(1 + s)).
+  return sum / ((s * 2.0f) * std::sqrt(1.0f + s));
 }
 
 // 1 + 254 * max(illumination, 0), rounded to the nearest byte: 254 x + (1 + 0.5) truncated
