@@ -6,7 +6,6 @@
 
 #include <cstdio>
 #include <fstream>
-#include <regex>
 #include <sstream>
 #include <stdexcept>
 
@@ -86,21 +85,6 @@ Raster rasterise(const std::filesystem::path& pdf, double dpi, const std::filesy
   if (magic != "P6" || maxval != 255) throw std::runtime_error("unexpected PPM from pdftoppm");
   out.rgb.resize(static_cast<std::size_t>(out.width) * out.height * 3);
   in.read(reinterpret_cast<char*>(out.rgb.data()), static_cast<std::streamsize>(out.rgb.size()));
-  return out;
-}
-
-std::vector<Word> words_of(const std::filesystem::path& pdf) {
-  auto r = sheetmill::test::run_command({"pdftotext", "-bbox", pdf.string(), "-"});
-  if (r.exit_code != 0) throw std::runtime_error("pdftotext failed: " + r.err);
-  std::vector<Word> out;
-  static const std::regex word(
-      R"re(<word xMin="([-0-9.]+)" yMin="([-0-9.]+)" xMax="([-0-9.]+)" yMax="([-0-9.]+)">([^<]*)</word>)re");
-  for (auto it = std::sregex_iterator(r.out.begin(), r.out.end(), word);
-       it != std::sregex_iterator(); ++it) {
-    const auto& m = *it;
-    out.push_back({m[5].str(), std::stod(m[1].str()), std::stod(m[2].str()), std::stod(m[3].str()),
-                   std::stod(m[4].str())});
-  }
   return out;
 }
 

@@ -35,11 +35,4 @@ struct Raster {
 };
 Raster rasterise(const std::filesystem::path& pdf, double dpi, const std::filesystem::path& dir);
 
-// One word of `pdftotext -bbox`: its text and box in PDF points (y down from the page top).
-struct Word {
-  std::string text;
-  double x_min = 0, y_min = 0, x_max = 0, y_max = 0;
-};
-std::vector<Word> words_of(const std::filesystem::path& pdf);
-
 }  // namespace sheetmill::exhibit_fixture

@@ -12,6 +12,7 @@
 #include "sheetmill/exhibit/exhibit_project.hpp"
 #include "sheetmill/exhibit/render_exhibit.hpp"
 #include "sheetmill/terrain/tint.hpp"
+#include "support/pdf_words.hpp"
 #include "support/test_env.hpp"
 
 using namespace sheetmill;
@@ -50,8 +51,8 @@ TEST_CASE("colour bar labels and colours match the ramp and the relief", "[exhib
   CHECK(bar.values_m == stops);
   std::vector<double> printed;
   const Box& box = rep.layout.colour_bar_box_mm;
-  for (const fx::Word& w : fx::words_of(dir / "x.pdf")) {
-    const double y_mm = w.y_min * kMmPerPt, x_mm = (w.x_min + w.x_max) / 2 * kMmPerPt;
+  for (const test::PdfWord& w : test::pdf_words(dir / "x.pdf")) {
+    const double y_mm = w.box_mm().min_y, x_mm = w.box_mm().centre().x;
     if (y_mm < bar.bar_bottom_mm || y_mm > box.max_y || x_mm < box.min_x || x_mm > box.max_x) {
       continue;
     }

@@ -9,6 +9,7 @@
 #include "sheetmill/exhibit/render_exhibit.hpp"
 #include "sheetmill/exhibit/type_scale.hpp"
 #include "sheetmill/text/font.hpp"
+#include "support/pdf_words.hpp"
 #include "support/test_env.hpp"
 
 using namespace sheetmill;
@@ -28,14 +29,14 @@ std::filesystem::path render_pdf(const sheetmill::test::TempDir& dir, const std:
   return dir / (name + ".pdf");
 }
 
-const fx::Word* find_word(const std::vector<fx::Word>& words, const std::string& text) {
+const test::PdfWord* find_word(const std::vector<test::PdfWord>& words, const std::string& text) {
   for (const auto& w : words) {
     if (w.text == text) return &w;
   }
   return nullptr;
 }
 
-bool has_phrase(const std::vector<fx::Word>& words, const std::vector<std::string>& phrase) {
+bool has_phrase(const std::vector<test::PdfWord>& words, const std::vector<std::string>& phrase) {
   for (std::size_t i = 0; i + phrase.size() <= words.size(); ++i) {
     bool all = true;
     for (std::size_t k = 0; k < phrase.size() && all; ++k) all = words[i + k].text == phrase[k];
@@ -81,14 +82,14 @@ TEST_CASE("title and body sizes on the page follow the rule for each paper", "[e
   for (const Case& c : cases) {
     INFO(c.paper);
     auto pdf = render_pdf(dir, c.paper, c.landscape, 1, "t" + std::to_string(&c - cases.data()));
-    auto words = fx::words_of(pdf);
+    auto words = test::pdf_words(pdf);
     TypeScale expected = type_scale_for(c.w_in * 25.4, c.h_in * 25.4);
-    const fx::Word* title = find_word(words, "Fenwick");      // the title's first word
-    const fx::Word* body = find_word(words, "illustration");  // the caution, body text
+    const test::PdfWord* title = find_word(words, "Fenwick");      // the title's first word
+    const test::PdfWord* body = find_word(words, "illustration");  // the caution, body text
     REQUIRE(title);
     REQUIRE(body);
-    const double title_pt = (title->y_max - title->y_min) / k_bold;
-    const double body_pt = (body->y_max - body->y_min) / k_regular;
+    const double title_pt = title->box_pt.height() / k_bold;
+    const double body_pt = body->box_pt.height() / k_regular;
     CHECK(title_pt == Approx(expected.title_pt).epsilon(0.02));
     CHECK(body_pt == Approx(expected.body_pt).epsilon(0.02));
     if (c.paper == "ARCH E") {
@@ -102,7 +103,7 @@ TEST_CASE("the exaggeration note appears exactly when the exaggeration is not 1"
   sheetmill::test::TempDir dir("exhibit-vex");
   for (double vex : {1.0, 2.0, 1.5}) {
     INFO("exaggeration " << vex);
-    auto words = fx::words_of(render_pdf(dir, "ARCH D", false, vex, "v" + std::to_string(vex)));
+    auto words = test::pdf_words(render_pdf(dir, "ARCH D", false, vex, "v" + std::to_string(vex)));
     const bool shown = has_phrase(words, {"Vertical", "exaggeration"});
     CHECK(shown == (vex != 1.0));
     if (vex == 2.0) CHECK(has_phrase(words, {"Vertical", "exaggeration", "2x"}));
@@ -112,7 +113,7 @@ TEST_CASE("the exaggeration note appears exactly when the exaggeration is not 1"
 
 TEST_CASE("every exhibit carries the caution", "[exhibit]") {
   sheetmill::test::TempDir dir("exhibit-caution");
-  auto words = fx::words_of(render_pdf(dir, "ARCH D", false, 1, "c"));
+  auto words = test::pdf_words(render_pdf(dir, "ARCH D", false, 1, "c"));
   CHECK(has_phrase(words, {"not", "a", "survey."}));
   CHECK(has_phrase(words, {"licensed", "surveyor"}));
 }

@@ -14,21 +14,12 @@
 #include "sheetmill/core/gdal_env.hpp"
 #include "sheetmill/pdf/layered_canvas.hpp"
 #include "sheetmill/render/feature_layers.hpp"
+#include "support/crs.hpp"
 #include "support/test_env.hpp"
 
 using namespace sheetmill;
 
 namespace {
-std::string wkt_of_epsg(int epsg) {
-  OGRSpatialReference s;
-  s.importFromEPSG(epsg);
-  char* w = nullptr;
-  const char* opts[] = {"FORMAT=WKT2", nullptr};
-  s.exportToWkt(&w, opts);
-  std::string out = w;
-  CPLFree(w);
-  return out;
-}
 // Peak resident set so far (VmHWM), kB, from /proc/self/status.
 long peak_rss_kb() {
   std::ifstream in("/proc/self/status");
@@ -80,7 +71,7 @@ TEST_CASE("bench: feature layers on one sheet", "[.bench]") {
   project::Project project;
   project.sources["roads"] = {"roads", src, "", "", true};
   MapFrame frame;
-  frame.crs_wkt = wkt_of_epsg(32633);
+  frame.crs_wkt = test::wkt_of_epsg(32633);
   frame.scale_denominator = 25000;
   frame.ground = Box::of(500000, 4000000, 510000, 4010000);  // 400 x 400 mm
   frame.page_origin_mm = {10, 10};

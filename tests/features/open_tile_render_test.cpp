@@ -6,7 +6,6 @@
 
 #include <catch2/catch.hpp>
 #include <fstream>
-#include <regex>
 
 #include "sheetmill/core/gdal_env.hpp"
 #include "sheetmill/core/handles.hpp"
@@ -15,22 +14,11 @@
 #include "sheetmill/pdf/layered_canvas.hpp"
 #include "sheetmill/render/feature_layers.hpp"
 #include "sheetmill/style/style.hpp"
+#include "support/crs.hpp"
+#include "support/pdf_words.hpp"
 #include "support/test_env.hpp"
 
 using namespace sheetmill;
-
-namespace {
-std::string wkt_of_epsg(int epsg) {
-  OGRSpatialReference s;
-  s.importFromEPSG(epsg);
-  char* w = nullptr;
-  const char* opts[] = {"FORMAT=WKT2", nullptr};
-  s.exportToWkt(&w, opts);
-  std::string out = w;
-  CPLFree(w);
-  return out;
-}
-}  // namespace
 
 namespace {
 
@@ -44,27 +32,6 @@ void write_vrt(const std::filesystem::path& file, const std::string& shp,
   out << "<OGRVRTDataSource><OGRVRTLayer name=\"l\"><SrcDataSource>" << src.string()
       << "</SrcDataSource><SrcSQL dialect=\"sqlite\">SELECT " << select << ", GEOMETRY FROM ss64ne_"
       << shp << "</SrcSQL><LayerSRS>EPSG:27700</LayerSRS></OGRVRTLayer></OGRVRTDataSource>\n";
-}
-
-struct Word {
-  std::string text;
-  Box box_mm;
-};
-
-// Words and their boxes from `pdftotext -bbox` (XHTML, points from the top-left corner).
-std::vector<Word> pdf_words(const std::filesystem::path& pdf, const std::filesystem::path& html) {
-  auto r = test::run_command({"pdftotext", "-bbox", pdf.string(), html.string()});
-  REQUIRE(r.exit_code == 0);
-  std::string s = test::read_text(html);
-  std::regex re(
-      R"re(<word xMin="([0-9.]+)" yMin="([0-9.]+)" xMax="([0-9.]+)" yMax="([0-9.]+)">([^<]*)</word>)re");
-  std::vector<Word> out;
-  for (auto it = std::sregex_iterator(s.begin(), s.end(), re); it != std::sregex_iterator(); ++it) {
-    const auto& m = *it;
-    out.push_back({m[5], Box::of(std::stod(m[1]) * kMmPerPt, std::stod(m[2]) * kMmPerPt,
-                                 std::stod(m[3]) * kMmPerPt, std::stod(m[4]) * kMmPerPt)});
-  }
-  return out;
 }
 
 bool overlap(const Box& a, const Box& b, double shrink) {
@@ -106,7 +73,7 @@ TEST_CASE("the open tile renders with the field style: layers drawn, names place
     project.sources[name] = {name, (tmp / (std::string(name) + ".vrt")).string(), "", "", true};
 
   MapFrame frame;
-  frame.crs_wkt = wkt_of_epsg(27700);
+  frame.crs_wkt = test::wkt_of_epsg(27700);
   frame.epsg = 27700;
   frame.scale_denominator = 25000;
   frame.ground = Box::of(265000, 145000, 270000, 150000);  // 200 x 200 mm at 1:25 000
@@ -216,10 +183,10 @@ TEST_CASE("the open tile renders with the field style: layers drawn, names place
   // Read the labels back from the PDF. Horizontal labels (point and area names) have exact
   // boxes in pdftotext's output; curved ones are split into rotated glyphs whose axis-aligned
   // boxes overlap their neighbours, so those are checked by their exact glyph quads instead.
-  std::vector<Word> words = pdf_words(tmp / "tile.pdf", tmp / "tile.html");
+  std::vector<test::PdfWord> words = test::pdf_words(tmp / "tile.pdf");
   REQUIRE(words.size() >= static_cast<std::size_t>(counts["places"].placed));
   std::vector<std::pair<Box, std::size_t>> horizontal;  // word box, owning candidate
-  for (const Word& w : words) {
+  for (const test::PdfWord& w : words) {
     for (std::size_t i = 0; i < result.name_candidates.size(); ++i) {
       const auto& c = result.name_candidates[i];
       if (!c.chosen) continue;
@@ -227,8 +194,8 @@ TEST_CASE("the open tile renders with the field style: layers drawn, names place
       if (fp.size() != 1) continue;
       Box b;
       for (const Point& p : fp[0]) b.add(p);
-      if (b.expanded(0.3).contains(w.box_mm.centre())) {
-        horizontal.push_back({w.box_mm, i});
+      if (b.expanded(0.3).contains(w.box_mm().centre())) {
+        horizontal.push_back({w.box_mm(), i});
         break;
       }
     }

@@ -13,6 +13,7 @@
 #include "sheetmill/core/error.hpp"
 #include "sheetmill/core/gdal_env.hpp"
 #include "sheetmill/core/map_frame.hpp"
+#include "support/crs.hpp"
 #include "support/test_env.hpp"
 
 using namespace sheetmill;
@@ -21,17 +22,6 @@ using sheetmill::features::read_features;
 using sheetmill::features::ReadRequest;
 
 namespace {
-
-std::string wkt_of(int epsg) {
-  OGRSpatialReference s;
-  s.importFromEPSG(epsg);
-  char* w = nullptr;
-  const char* opts[] = {"FORMAT=WKT2", nullptr};
-  s.exportToWkt(&w, opts);
-  std::string out = w;
-  CPLFree(w);
-  return out;
-}
 
 // Writes a GeoPackage layer `name` with points (x, y) and a string field `cls`, in EPSG `epsg`.
 void write_points(const std::filesystem::path& file, int epsg,
@@ -66,7 +56,7 @@ TEST_CASE("a layer in EPSG:4326 lands where the same layer in the sheet CRS does
   test::TempDir tmp("reproj");
   // Sheet: British National Grid at 1:25 000 over 5 x 5 km in the south-west.
   MapFrame frame;
-  frame.crs_wkt = wkt_of(27700);
+  frame.crs_wkt = test::wkt_of_epsg(27700);
   frame.scale_denominator = 25000;
   frame.ground = Box::of(265000, 145000, 270000, 150000);
 
@@ -125,7 +115,7 @@ TEST_CASE("spatial and attribute filters reach GDAL: only the sheet's features a
   write_points(tmp / "p.gpkg", 32633, pts);
   // Frame over 5 x 4 cells of the 20 x 20 grid: 20 points inside.
   Box frame = Box::of(505000, 4003000, 510000, 4007000);
-  ReadRequest req{wkt_of(32633), frame, {"cls"}};
+  ReadRequest req{test::wkt_of_epsg(32633), frame, {"cls"}};
 
   project::Source src{"p", (tmp / "p.gpkg").string(), "pts", "", true};
   long seen = 0;
@@ -154,7 +144,7 @@ TEST_CASE("spatial and attribute filters reach GDAL: only the sheet's features a
 
 TEST_CASE("missing sources: required is an input error, optional a warning", "[features]") {
   test::TempDir tmp("missing");
-  ReadRequest req{wkt_of(32633), Box::of(0, 0, 1, 1), {}};
+  ReadRequest req{test::wkt_of_epsg(32633), Box::of(0, 0, 1, 1), {}};
   project::Source src{"roads", (tmp / "absent.gpkg").string(), "", "", true};
   try {
     read_features(src, req, [](const Feature&) {});
@@ -182,7 +172,7 @@ TEST_CASE("the GB open topographic tile reads completely in its own CRS", "[feat
   }
   // The tile covers SS 65-70 E, 45-50 N (the layers' extents, ogrinfo). A frame covering all of
   // it must deliver every feature GDAL counts (GDAL's own feature count is the oracle).
-  ReadRequest req{wkt_of(27700), Box::of(264900, 144900, 270100, 150100), {"FeatCode"}};
+  ReadRequest req{test::wkt_of_epsg(27700), Box::of(264900, 144900, 270100, 150100), {"FeatCode"}};
   for (const char* name : {"Road_Centreline", "Water_Area", "Water_Line", "Building_Area",
                            "Landform_Area", "Landform_Line", "General_Text", "Height_Contours"}) {
     auto path = test::open_data("libplplot-data", dir + "ss64ne_" + name + ".shp");

@@ -20,6 +20,7 @@
 #include "sheetmill/core/gdal_env.hpp"
 #include "sheetmill/core/geometry.hpp"
 #include "sheetmill/core/units.hpp"
+#include "support/pdf_words.hpp"
 
 using namespace sheetmill;
 namespace fs = std::filesystem;
@@ -265,36 +266,33 @@ TEST_CASE("contour labels in the demo PDF face uphill and keep apart", "[render]
 
   // Rotated text in the contours group is a contour value; spot heights there are set level
   // (an exactly axis-aligned matrix) and are not part of this check.
-  auto words = test::run_command({"pdftotext", "-bbox", demo_pdf().string(), "-"});
-  REQUIRE(words.exit_code == 0);
-  std::regex word_re(
-      R"re(<word xMin="([0-9.]+)" yMin="([0-9.]+)" xMax="([0-9.]+)" yMax="([0-9.]+)">([0-9]+)</word>)re");
-  // Poppler may split a rotated value into several words; each word belongs to the label run
-  // whose origin (start of the baseline) it lies nearest.
+  auto is_label_run = [&](std::size_t k) {
+    const auto& [group, t] = runs[k];
+    return group == "contours" && !(t.b == 0 && t.c == 0);
+  };
+  // Poppler may split a rotated value into several words; each word of figures belongs to the
+  // label run whose origin (start of the baseline) it lies nearest.
   struct Word {
     Box box_pt;
     std::size_t run;
   };
   std::vector<Word> found;
-  std::set<std::size_t> runs_seen;
   int checked = 0;
-  for (std::sregex_iterator it(words.out.begin(), words.out.end(), word_re), end; it != end; ++it) {
-    const auto& m = *it;
-    Box box = Box::of(std::stod(m[1]), std::stod(m[2]), std::stod(m[3]), std::stod(m[4]));
+  for (const test::PdfWord& w : test::pdf_words(demo_pdf())) {
+    if (w.text.empty() || w.text.find_first_not_of("0123456789") != std::string::npos) continue;
     std::optional<std::size_t> best;
     double best_d = 1e300;
     for (std::size_t k = 0; k < runs.size(); ++k) {
-      const auto& [group, t] = runs[k];
-      if (group != "contours" || (t.b == 0 && t.c == 0)) continue;
-      Point origin{t.e, page_h_pt - t.f};
-      double d = distance(origin, box.centre());
-      if (box.expanded(12.0).contains(origin) && d < best_d) best = k, best_d = d;
+      if (!is_label_run(k)) continue;
+      Point origin{runs[k].second.e, page_h_pt - runs[k].second.f};
+      double d = distance(origin, w.box_pt.centre());
+      if (w.box_pt.expanded(12.0).contains(origin) && d < best_d) best = k, best_d = d;
     }
-    if (best) found.push_back({box, *best});
+    if (best) found.push_back({w.box_pt, *best});
   }
   for (std::size_t k = 0; k < runs.size(); ++k) {
-    const auto& [group, t] = runs[k];
-    if (group != "contours" || (t.b == 0 && t.c == 0)) continue;
+    if (!is_label_run(k)) continue;
+    const Affine& t = runs[k].second;
     // The middle of the figures: from the start of the baseline, about 0.85 em along it (three
     // digits) and 0.35 em up (half the figure height); the font size is the matrix's scale.
     const double em = std::hypot(t.a, t.b);

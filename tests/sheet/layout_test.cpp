@@ -3,7 +3,6 @@
 #include <cairo-pdf.h>
 
 #include <catch2/catch.hpp>
-#include <regex>
 
 #include "sheetmill/core/error.hpp"
 #include "sheetmill/core/handles.hpp"
@@ -11,6 +10,7 @@
 #include "sheetmill/sheet/grid.hpp"
 #include "sheetmill/sheet/sheet_crs.hpp"
 #include "sheetmill/text/shaping.hpp"
+#include "support/pdf_words.hpp"
 #include "support/test_env.hpp"
 
 using namespace sheetmill;
@@ -25,29 +25,6 @@ project::Project utm_project() {
   p.paper = {"A1", 841, 594};
   p.extent.box = Box::of(500000, 5200000, 510000, 5208000);
   return p;
-}
-
-struct Word {
-  std::string text;
-  Box mm;
-};
-
-// pdftotext -bbox (poppler) reports word boxes in PDF points from the page's top-left.
-std::vector<Word> words_of(const std::filesystem::path& pdf, const test::TempDir& dir) {
-  auto html = dir / "words.html";
-  auto r = test::run_command({"pdftotext", "-bbox", pdf.string(), html.string()});
-  REQUIRE(r.exit_code == 0);
-  std::string s = test::read_text(html);
-  std::regex re(
-      R"re(<word xMin="([0-9.]+)" yMin="([0-9.]+)" xMax="([0-9.]+)" yMax="([0-9.]+)">([^<]*)</word>)re");
-  std::vector<Word> out;
-  for (auto it = std::sregex_iterator(s.begin(), s.end(), re); it != std::sregex_iterator(); ++it) {
-    auto m = *it;
-    double k = kMmPerPt;
-    out.push_back({m[5], Box::of(std::stod(m[1]) * k, std::stod(m[2]) * k, std::stod(m[3]) * k,
-                                 std::stod(m[4]) * k)});
-  }
-  return out;
 }
 
 }  // namespace
@@ -119,7 +96,7 @@ TEST_CASE("grid label positions on the page", "[sheet]") {
     cr.reset();
     cairo_surface_finish(surface.get());
   }
-  auto words = words_of(pdf, dir);
+  auto words = test::pdf_words(pdf);
   REQUIRE(!words.empty());
   const double origin_x = L.map_box_mm.min_x;
   // poppler splits words where the type size changes, so the large principal digits are a word
@@ -127,10 +104,10 @@ TEST_CASE("grid label positions on the page", "[sheet]") {
   double x = origin_x + (503000 - 500000) * 1000.0 / 25000;
   int found = 0;
   for (const auto& w : words) {
-    bool above = w.mm.max_y<L.map_box_mm.min_y, below = w.mm.min_y> L.map_box_mm.max_y;
+    bool above = w.box_mm().max_y<L.map_box_mm.min_y, below = w.box_mm().min_y> L.map_box_mm.max_y;
     if (w.text != "03" || !(above || below)) continue;
     ++found;
-    CHECK(w.mm.centre().x == Approx(x).margin(0.2));
+    CHECK(w.box_mm().centre().x == Approx(x).margin(0.2));
   }
   CHECK(found == 2);
   // Northing 5 204 000 ("52" small, "04" large) left and right of the frame, reading up the
@@ -138,10 +115,10 @@ TEST_CASE("grid label positions on the page", "[sheet]") {
   double y = L.map_box_mm.min_y + (5208000 - 5204000) * 1000.0 / 25000;
   found = 0;
   for (const auto& w : words) {
-    bool left = w.mm.max_x<L.map_box_mm.min_x, right = w.mm.min_x> L.map_box_mm.max_x;
+    bool left = w.box_mm().max_x<L.map_box_mm.min_x, right = w.box_mm().min_x> L.map_box_mm.max_x;
     if (w.text != "04" || !(left || right)) continue;
     ++found;
-    CHECK(w.mm.centre().y == Approx(y).margin(0.2));
+    CHECK(w.box_mm().centre().y == Approx(y).margin(0.2));
   }
   CHECK(found == 2);
   // Full values at the corners: the westernmost easting carries "000m" and "E".
@@ -179,6 +156,6 @@ TEST_CASE("second grid in another CRS", "[sheet]") {
   Point c2 = to2.forward(L.frame.ground.centre());
   std::string km = std::to_string(static_cast<long>(std::floor(c2.x / 1000)));
   bool found = false;
-  for (const auto& w : words_of(pdf, dir)) found = found || w.text == km;
+  for (const auto& w : test::pdf_words(pdf)) found = found || w.text == km;
   CHECK(found);
 }

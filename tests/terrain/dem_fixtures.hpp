@@ -12,18 +12,13 @@
 
 #include "sheetmill/core/gdal_env.hpp"
 #include "sheetmill/terrain/dem.hpp"
+#include "support/crs.hpp"
 
 namespace sheetmill::terrain::fixture {
 
 // WKT of an EPSG CRS (traditional axis order is applied by readers).
 inline std::string wkt_of(int epsg) {
-  OGRSpatialReference srs;
-  srs.importFromEPSG(epsg);
-  char* w = nullptr;
-  srs.exportToWkt(&w);
-  std::string s = w;
-  CPLFree(w);
-  return s;
+  return test::wkt_of_epsg(epsg);
 }
 
 // A north-up grid with its top-left corner at (x0, y0) and square cells.
