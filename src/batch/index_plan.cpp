@@ -96,6 +96,15 @@ std::unique_ptr<OGRSpatialReference> parse_crs(const std::string& text) {
   return srs;
 }
 
+// Lattice cells [i0, i1] x [j0, j1] are refused beyond kMaxSheets, before any is made (a frame
+// "at this scale" or graticule cell "at this size" far too small for the area).
+void check_lattice_size(long i0, long i1, long j0, long j1, const char* at_this) {
+  if ((i1 - i0 + 1) * (j1 - j0 + 1) > kMaxSheets) {
+    throw_input_error("--extent",
+                      std::string("the area needs more than a million sheets at this ") + at_this);
+  }
+}
+
 std::vector<Cell> grid_cells(const IndexSpec& spec, IndexPlan& plan) {
   double snap = spec.snap_m;
   if (!(snap > 0)) throw_input_error("--snap", "expected a positive ground length");
@@ -130,9 +139,7 @@ std::vector<Cell> grid_cells(const IndexSpec& spec, IndexPlan& plan) {
   long i1 = static_cast<long>(std::ceil(a.max_x / step_x)) - 1;
   long j0 = static_cast<long>(std::floor((a.min_y - h) / step_y)) + 1;
   long j1 = static_cast<long>(std::ceil(a.max_y / step_y)) - 1;
-  if ((i1 - i0 + 1) * (j1 - j0 + 1) > kMaxSheets) {
-    throw_input_error("--extent", "the area needs more than a million sheets at this scale");
-  }
+  check_lattice_size(i0, i1, j0, j1, "scale");
   std::vector<Cell> cells;
   for (long j = j0; j <= j1; ++j) {
     for (long i = i0; i <= i1; ++i) {
@@ -151,15 +158,6 @@ std::vector<Cell> grid_cells(const IndexSpec& spec, IndexPlan& plan) {
   return cells;
 }
 
-std::string wkt2_of(const OGRSpatialReference& srs) {
-  char* wkt = nullptr;
-  const char* options[] = {"FORMAT=WKT2_2018", nullptr};
-  srs.exportToWkt(&wkt, options);
-  std::string out = wkt ? wkt : "";
-  CPLFree(wkt);
-  return out;
-}
-
 std::vector<Cell> graticule_cells(const IndexSpec& spec, const OGRSpatialReference& srs,
                                   IndexPlan& plan) {
   if (!(spec.cell_width_min > 0) || !(spec.cell_height_min > 0)) {
@@ -172,7 +170,7 @@ std::vector<Cell> graticule_cells(const IndexSpec& spec, const OGRSpatialReferen
   if (!to_geog || !to_crs) throw_input_error("--crs", "cannot relate the CRS to its datum");
   // Graticule sheets are stored in longitude and latitude: their edges are meridians and
   // parallels, which the renderer densifies when it projects them.
-  plan.crs_wkt = wkt2_of(*geog);
+  plan.crs_wkt = crs_wkt(*geog, "WKT2_2018");
   Box g;
   if (srs.IsGeographic()) {
     g = spec.area;
@@ -187,9 +185,7 @@ std::vector<Cell> graticule_cells(const IndexSpec& spec, const OGRSpatialReferen
   long i1 = static_cast<long>(std::ceil(g.max_x / dx)) - 1;
   long j0 = static_cast<long>(std::floor(g.min_y / dy));
   long j1 = static_cast<long>(std::ceil(g.max_y / dy)) - 1;
-  if ((i1 - i0 + 1) * (j1 - j0 + 1) > kMaxSheets) {
-    throw_input_error("--extent", "the area needs more than a million sheets at this size");
-  }
+  check_lattice_size(i0, i1, j0, j1, "size");
   std::vector<Cell> cells;
   for (long j = j0; j <= j1; ++j) {
     for (long i = i0; i <= i1; ++i) {
@@ -253,7 +249,7 @@ IndexPlan plan_tile_index(const IndexSpec& spec) {
   }
   auto srs = parse_crs(spec.crs);
   IndexPlan plan;
-  plan.crs_wkt = wkt2_of(*srs);
+  plan.crs_wkt = crs_wkt(*srs, "WKT2_2018");
   std::vector<Cell> cells;
   if (spec.alignment == IndexAlignment::grid) {
     if (srs->IsGeographic()) {

@@ -167,11 +167,7 @@ TileIndexContent read_tile_index(const std::string& path, const std::string& lay
   }
   TileIndexContent out;
   if (const OGRSpatialReference* srs = layer->GetSpatialRef()) {
-    char* wkt = nullptr;
-    const char* options[] = {"FORMAT=WKT2_2018", nullptr};
-    srs->exportToWkt(&wkt, options);
-    out.crs_wkt = wkt ? wkt : "";
-    CPLFree(wkt);
+    out.crs_wkt = crs_wkt(*srs, "WKT2_2018");
   }
   layer->ResetReading();
   for (auto& f : *layer) {

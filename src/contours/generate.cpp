@@ -1,9 +1,5 @@
 #include "sheetmill/contours/generate.hpp"
 
-#include <gdal_alg.h>
-#include <gdal_priv.h>
-#include <ogrsf_frmts.h>
-
 #include <algorithm>
 #include <cmath>
 #include <limits>
@@ -15,7 +11,6 @@
 #include "sheetmill/contours/gdal_contours.hpp"
 #include "sheetmill/contours/prepare.hpp"
 #include "sheetmill/core/error.hpp"
-#include "sheetmill/core/gdal_env.hpp"
 #include "sheetmill/core/units.hpp"
 
 namespace sheetmill::contours {

@@ -1,6 +1,8 @@
 #include "sheetmill/core/gdal_env.hpp"
 
+#include <cpl_conv.h>
 #include <cpl_error.h>
+#include <ogr_spatialref.h>
 
 #include <filesystem>
 #include <mutex>
@@ -60,6 +62,16 @@ DatasetPtr open_raster(const std::string& path) {
 
 DatasetPtr open_vector(const std::string& path) {
   return open_with(path, GDAL_OF_VECTOR | GDAL_OF_READONLY, "a vector source");
+}
+
+std::string crs_wkt(const OGRSpatialReference& srs, const char* format) {
+  std::string option = format ? std::string("FORMAT=") + format : std::string();
+  const char* options[] = {format ? option.c_str() : nullptr, nullptr};
+  char* wkt = nullptr;
+  srs.exportToWkt(&wkt, options);
+  std::string out = wkt ? wkt : "";
+  CPLFree(wkt);
+  return out;
 }
 
 }  // namespace sheetmill

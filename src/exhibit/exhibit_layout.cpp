@@ -32,11 +32,7 @@ void set_crs(MapFrame& frame, const ExhibitProject& project) {
     throw_input_error(SourceLocation{project.file.string(), 0, 0, "crs"},
                       "expected a projected CRS (metres), got \"" + project.crs + "\"");
   }
-  char* wkt = nullptr;
-  const char* options[] = {"FORMAT=WKT2_2019", nullptr};
-  srs.exportToWkt(&wkt, options);
-  frame.crs_wkt = wkt ? wkt : "";
-  CPLFree(wkt);
+  frame.crs_wkt = crs_wkt(srs, "WKT2_2019");
   frame.crs_name = srs.GetName() ? srs.GetName() : project.crs;
   const char* code = srs.GetAuthorityCode(nullptr);
   const char* auth = srs.GetAuthorityName(nullptr);

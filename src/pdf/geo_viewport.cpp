@@ -5,6 +5,7 @@
 #include <array>
 
 #include "sheetmill/core/error.hpp"
+#include "sheetmill/core/gdal_env.hpp"
 #include "sheetmill/core/handles.hpp"
 #include "sheetmill/core/units.hpp"
 
@@ -38,15 +39,6 @@ struct ToGeographic {
     return {x, y};
   }
 };
-
-std::string wkt1_of(const OGRSpatialReference& srs) {
-  char* wkt = nullptr;
-  const char* options[] = {"FORMAT=WKT1_GDAL", nullptr};
-  srs.exportToWkt(&wkt, options);
-  std::string out = wkt ? wkt : "";
-  CPLFree(wkt);
-  return out;
-}
 
 }  // namespace
 
@@ -91,7 +83,7 @@ QPDFObjectHandle make_viewport_array(QPDF& pdf, const GeoRegistration& geo, doub
   auto gcs = QPDFObjectHandle::newDictionary();
   gcs.replaceKey("/Type", QPDFObjectHandle::newName("/PROJCS"));
   if (geo.epsg > 0) gcs.replaceKey("/EPSG", QPDFObjectHandle::newInteger(geo.epsg));
-  gcs.replaceKey("/WKT", QPDFObjectHandle::newString(wkt1_of(conv.projected)));
+  gcs.replaceKey("/WKT", QPDFObjectHandle::newString(crs_wkt(conv.projected, "WKT1_GDAL")));
 
   auto measure = QPDFObjectHandle::newDictionary();
   measure.replaceKey("/Type", QPDFObjectHandle::newName("/Measure"));

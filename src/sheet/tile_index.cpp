@@ -61,10 +61,7 @@ TileIndexContents read_tile_index(const project::TileIndex& index,
   std::optional<Reprojector> to_sheet;
   if (const OGRSpatialReference* srs = layer->GetSpatialRef()) {
     out.geographic = srs->IsGeographic();
-    char* wkt = nullptr;
-    srs->exportToWkt(&wkt, nullptr);
-    std::string src = wkt ? wkt : "";
-    CPLFree(wkt);
+    std::string src = crs_wkt(*srs);
     if (!src.empty()) to_sheet.emplace(src, sheet_crs_definition);
   }
 

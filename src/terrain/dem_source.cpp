@@ -35,10 +35,7 @@ DemSource::DemSource(const std::string& path, const DemReadOptions& options)
     throw_input_error(path, "the DEM's grid is rotated or flipped; warp it north-up first");
   }
   srs_ = detail::dem_crs(*ds_, options, path);
-  char* wkt = nullptr;
-  srs_.exportToWkt(&wkt);
-  grid_.crs_wkt = wkt ? wkt : "";
-  CPLFree(wkt);
+  grid_.crs_wkt = crs_wkt(srs_);
   scale_ = detail::ground_scale(srs_);
   GDALRasterBand* band = ds_->GetRasterBand(1);
   double z_factor = detail::metres_per_z_unit(*band, srs_, options, path);

@@ -122,11 +122,8 @@ Dem read_dem_window(const std::string& path, const RasterGrid& target,
   }
 
   GdalErrorScope errors;
-  char* src_wkt = nullptr;
-  src_srs.exportToWkt(&src_wkt);
   CPLStringList tr_opts;
-  tr_opts.SetNameValue("SRC_SRS", src_wkt);
-  CPLFree(src_wkt);
+  tr_opts.SetNameValue("SRC_SRS", crs_wkt(src_srs).c_str());
   void* gen = GDALCreateGenImgProjTransformer2(warp_src, dst.get(), tr_opts.List());
   if (!gen) {
     throw_input_error(

@@ -10,6 +10,8 @@
 
 #include "sheetmill/core/handles.hpp"
 
+class OGRSpatialReference;
+
 namespace sheetmill {
 
 void gdal_init();
@@ -34,5 +36,9 @@ class GdalErrorScope {
 DatasetPtr open_raster(const std::string& path);
 // Opens a vector source with OGR (a file path or a connection string GDAL supports).
 DatasetPtr open_vector(const std::string& path);
+
+// The CRS as WKT in GDAL's `format` (an exportToWkt FORMAT: "WKT2_2019", "WKT1_GDAL", ...;
+// null: GDAL's default), or "" when it cannot be expressed.
+std::string crs_wkt(const OGRSpatialReference& srs, const char* format = nullptr);
 
 }  // namespace sheetmill
