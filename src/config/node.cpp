@@ -221,6 +221,12 @@ fs::path ConfigNode::as_path() const {
   return (base_dir() / p).lexically_normal();
 }
 
+std::string ConfigNode::as_data_source() const {
+  std::string s = as_string();
+  bool connection = s.find(':') != std::string::npos || s.rfind("/vsi", 0) == 0;
+  return connection ? s : as_path().string();
+}
+
 namespace {
 ConfigNode parse(const std::string& text, const std::string& name) {
   auto file = std::make_shared<const std::string>(name);

@@ -13,13 +13,6 @@ using config::ConfigNode;
 
 namespace {
 
-// A relative path, or a GDAL connection string / virtual path kept as written.
-std::string data_path(const ConfigNode& n) {
-  std::string s = n.as_string();
-  bool connection = s.find(':') != std::string::npos || s.rfind("/vsi", 0) == 0;
-  return connection ? s : n.as_path().string();
-}
-
 Colour colour_of(const ConfigNode& n) {
   Colour c;
   if (!terrain::parse_hex_colour(n.as_string(), c)) n.fail_expected("a colour \"#rrggbb\"");
@@ -48,7 +41,7 @@ LayerRef layer_of(const ConfigNode& n, std::initializer_list<std::string_view> e
   for (auto k : extra_keys) keys.emplace_back(k);
   n.expect_keys(keys);
   LayerRef r;
-  r.path = data_path(n.at("file"));
+  r.path = n.at("file").as_data_source();
   r.layer = n.get_or<std::string>("layer", "");
   r.where = n.get_or<std::string>("where", "");
   return r;
@@ -90,7 +83,7 @@ terrain::TintRamp stops_of(const ConfigNode& n) {
 void read_relief(const ConfigNode& n, ReliefSettings& r) {
   n.expect_keys({"dem", "dem_crs", "tint", "tint_range", "tint_stops", "tint_file", "exaggeration",
                  "shading", "sun_altitude", "dpi", "compression", "jpeg_quality", "water_shade"});
-  r.dem = data_path(n.at("dem"));
+  r.dem = n.at("dem").as_data_source();
   if (auto c = n.find("dem_crs")) r.dem_crs = c->as_string();
   int given = 0;
   if (auto t = n.find("tint")) {

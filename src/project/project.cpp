@@ -9,22 +9,15 @@ using config::ConfigNode;
 
 namespace {
 
-// A relative path or a GDAL connection string ("PG:...", "/vsicurl/...") kept as written.
-std::string data_path(const ConfigNode& n) {
-  std::string s = n.as_string();
-  bool connection = s.find(':') != std::string::npos || s.rfind("/vsi", 0) == 0;
-  return connection ? s : n.as_path().string();
-}
-
 Source read_source(const std::string& name, const ConfigNode& n) {
   Source src;
   src.name = name;
   if (n.is_scalar()) {
-    src.path = data_path(n);
+    src.path = n.as_data_source();
     return src;
   }
   n.expect_keys({"path", "layer", "where", "required"});
-  src.path = data_path(n.at("path"));
+  src.path = n.at("path").as_data_source();
   src.layer = n.get_or<std::string>("layer", "");
   src.where = n.get_or<std::string>("where", "");
   src.required = n.get_or<bool>("required", true);
@@ -90,7 +83,7 @@ Extent read_extent(const ConfigNode& n) {
 Elevation read_elevation(const ConfigNode& n) {
   n.expect_keys({"dem", "vertical_unit", "crs", "vertical_datum"});
   Elevation el;
-  el.dem = data_path(n.at("dem"));
+  el.dem = n.at("dem").as_data_source();
   if (auto u = n.find("vertical_unit")) el.vertical_unit = u->as_choice({"m", "ft", "us-ft"});
   if (auto c = n.find("crs")) el.crs = c->as_string();
   if (auto d = n.find("vertical_datum")) el.vertical_datum = d->as_string();
@@ -113,7 +106,7 @@ ContourSettings read_contours(const ConfigNode& n) {
 TileIndex read_tile_index(const ConfigNode& n) {
   n.expect_keys({"path", "layer", "id_field", "name_field"});
   TileIndex t;
-  t.path = data_path(n.at("path"));
+  t.path = n.at("path").as_data_source();
   t.layer = n.get_or<std::string>("layer", "");
   t.id_field = n.get_or<std::string>("id_field", "sheet_id");
   t.name_field = n.get_or<std::string>("name_field", "name");
@@ -183,7 +176,7 @@ Project load_project(const std::filesystem::path& path) {
   if (auto s = root.find("sources")) {
     for (const auto& [name, node] : s->entries()) p.sources[name] = read_source(name, node);
   }
-  if (auto v = root.find("vector_data")) p.vector_data = data_path(*v);
+  if (auto v = root.find("vector_data")) p.vector_data = v->as_data_source();
   if (auto t = root.find("tile_index")) p.tile_index = read_tile_index(*t);
   if (auto m = root.find("magnetic")) p.magnetic = read_magnetic(*m);
   if (auto o = root.find("output")) p.output = read_output(*o);

@@ -67,6 +67,9 @@ class ConfigNode {
   std::vector<double> as_numbers(std::size_t n) const;
   // A path, resolved against the document's folder unless absolute.
   std::filesystem::path as_path() const;
+  // A data source for GDAL: a relative path resolved as as_path() does, or a connection string
+  // or virtual path ("PG:...", "/vsicurl/...") kept as written.
+  std::string as_data_source() const;
 
   template <class T>
   T get_or(std::string_view key, T fallback) const;
