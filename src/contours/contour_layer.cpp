@@ -13,6 +13,7 @@
 #include "sheetmill/contours/generate.hpp"
 #include "sheetmill/contours/prepare.hpp"
 #include "sheetmill/core/atomic_file.hpp"
+#include "sheetmill/core/caution.hpp"
 #include "sheetmill/core/error.hpp"
 #include "sheetmill/core/gdal_env.hpp"
 #include "sheetmill/core/log.hpp"
@@ -27,7 +28,8 @@ namespace {
 void write_label_layer(GDALDataset& ds, const std::vector<LabelPoint>& labels,
                        const OGRSpatialReference* srs, const std::filesystem::path& out) {
   GdalErrorScope errors;
-  const char* lco[] = {"SPATIAL_INDEX=YES", nullptr};
+  const std::string description = std::string("DESCRIPTION=") + kProductCaution;
+  const char* lco[] = {"SPATIAL_INDEX=YES", description.c_str(), nullptr};
   OGRLayer* layer = ds.CreateLayer("contour_labels", const_cast<OGRSpatialReference*>(srs),
                                    wkbPoint, const_cast<char**>(lco));
   if (!layer) throw_input_error(out.string(), "cannot create the layer: " + errors.last_failure());
@@ -100,7 +102,8 @@ void write_geopackage(const std::filesystem::path& out, const std::vector<Contou
       throw_input_error(out.string(), "cannot create a GeoPackage: " + errors.last_failure());
     OGRSpatialReference srs;
     bool has_srs = !crs_wkt.empty() && srs.importFromWkt(crs_wkt.c_str()) == OGRERR_NONE;
-    const char* lco[] = {"SPATIAL_INDEX=YES", nullptr};
+    const std::string description = std::string("DESCRIPTION=") + kProductCaution;
+    const char* lco[] = {"SPATIAL_INDEX=YES", description.c_str(), nullptr};
     OGRLayer* layer = ds->CreateLayer("contours", has_srs ? &srs : nullptr, wkbLineString,
                                       const_cast<char**>(lco));
     if (!layer)

@@ -11,6 +11,7 @@
 #include <future>
 
 #include "sheetmill/core/atomic_file.hpp"
+#include "sheetmill/core/caution.hpp"
 #include "sheetmill/core/error.hpp"
 #include "sheetmill/core/gdal_env.hpp"
 #include "sheetmill/core/log.hpp"
@@ -61,6 +62,7 @@ DatasetPtr create_output(const std::string& path, const DemSource& src, int band
   std::copy(g.geotransform, g.geotransform + 6, gt);
   ds->SetGeoTransform(gt);
   ds->SetSpatialRef(&src.crs());  // the parsed CRS itself: no second WKT parse
+  ds->SetMetadataItem("TIFFTAG_IMAGEDESCRIPTION", kProductCaution);
   return ds;
 }
 

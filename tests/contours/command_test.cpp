@@ -100,6 +100,14 @@ TEST_CASE("contours --labels: on index lines, tops of the figures uphill", "[con
           std::sin(20 * kDegToRad) * slope);
   }
   CHECK(n >= 10);
+  // Both layers carry the caution in their GeoPackage description (gpkg_contents), read back
+  // with OGR.
+  for (const char* name : {"contours", "contour_labels"}) {
+    const char* d = ds->GetLayerByName(name)->GetMetadataItem("DESCRIPTION");
+    REQUIRE(d);
+    CHECK(std::string(d).find("not a survey") != std::string::npos);
+    CHECK(std::string(d).find("licensed surveyor") != std::string::npos);
+  }
 }
 
 TEST_CASE("a DEM in feet is contoured and labelled in feet", "[contours]") {

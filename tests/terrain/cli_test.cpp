@@ -123,6 +123,10 @@ TEST_CASE("sheetmill slope: holes are 0 and masked, flat ground is 0 and data", 
   INFO(r.err);
   REQUIRE(r.exit_code == 0);
   DatasetPtr ds = open_out(out);
+  // The caution travels with the raster (TIFF ImageDescription, read back by GDAL).
+  const char* caution = ds->GetMetadataItem("TIFFTAG_IMAGEDESCRIPTION");
+  REQUIRE(caution);
+  CHECK(std::string(caution).find("not a survey") != std::string::npos);
   int has_nodata = 0;
   ds->GetRasterBand(1)->GetNoDataValue(&has_nodata);
   CHECK(has_nodata == 0);
