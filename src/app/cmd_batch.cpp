@@ -2,6 +2,7 @@
 #include <memory>
 
 #include "app/commands.hpp"
+#include "app/option_checks.hpp"
 #include "sheetmill/batch/batch_command.hpp"
 #include "sheetmill/batch/option_values.hpp"
 #include "sheetmill/core/error.hpp"
@@ -32,7 +33,8 @@ void add_batch_command(CLI::App& app, Action& action, const GlobalOptions&) {
   cmd->add_option("-o,--output-dir", opt->output_dir,
                   "Folder for the sheets, stamps and report (default: sheets/ beside the project)");
   cmd->add_option("-j,--workers", opt->workers, "Worker processes (default: every usable CPU)")
-      ->check(CLI::NonNegativeNumber);
+      ->check(whole_number_from(0, "a number of workers"))
+      ->type_name("N");
   auto* sheets = cmd->add_option("--sheets", opt->sheets, "Only these sheet IDs: ID,ID,...");
   auto* where = cmd->add_option("--where", opt->where, "Only sheets whose FIELD=VALUE");
   auto* bbox = cmd->add_option("--bbox", opt->bbox,
@@ -44,7 +46,8 @@ void add_batch_command(CLI::App& app, Action& action, const GlobalOptions&) {
   cmd->add_option("--single-file", opt->single_file,
                   "Also merge the sheets, in index order, into this one multi-page PDF");
   cmd->add_option("--progress", opt->progress, "auto, bar, lines or none")
-      ->check(CLI::IsMember({"auto", "bar", "lines", "none"}))
+      ->check(one_of({"auto", "bar", "lines", "none"}))
+      ->type_name("HOW")
       ->capture_default_str();
   cmd->add_flag("--force", opt->force, "Render even the sheets that are up to date");
   cmd->add_flag("--list", opt->list, "List the selected sheets and whether each is up to date");

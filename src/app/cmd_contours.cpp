@@ -5,8 +5,11 @@
 #include <string>
 
 #include "app/commands.hpp"
+#include "app/option_checks.hpp"
 #include "sheetmill/contours/contour_layer.hpp"
 #include "sheetmill/core/log.hpp"
+#include "sheetmill/core/plural.hpp"
+#include "sheetmill/core/scale_text.hpp"
 #include "sheetmill/core/units.hpp"
 
 namespace sheetmill::app {
@@ -19,31 +22,47 @@ void add_contours_command(CLI::App& app, Action& action, const GlobalOptions&) {
     bool raw = false;
     bool labels = false;
     std::string units = "auto";
+    std::string scale = "1:25000";
   };
   auto args = std::make_shared<Args>();
   args->params.interval_m = 0;  // 0: proposed from the scale and the relief
   CLI::App* cmd = app.add_subcommand(
       "contours", "Contour lines from a DEM, prepared for print, into a GeoPackage");
-  cmd->add_option("DEM", args->dem, "Elevation raster (any GDAL raster)")->required();
-  cmd->add_option("OUT", args->out, "Output GeoPackage (.gpkg)")->required();
+  cmd->add_option("DEM", args->dem, "Elevation raster (any GDAL raster)")
+      ->required()
+      ->type_name("FILE");
+  cmd->add_option("OUT", args->out, "Output GeoPackage (.gpkg)")->required()->type_name("FILE");
   cmd->add_option("--interval", args->params.interval_m,
-                  "Contour interval, in --units (default: proposed from the scale and relief)");
+                  "Contour interval, in --units (default: proposed from the scale and relief)")
+      ->check(positive_number("a contour interval"))
+      ->type_name("HEIGHT");
   cmd->add_option("--base", args->params.base_m, "Level the intervals count from, in --units")
+      ->check(number_from(-20000, 20000, "a base level", "(in --units)"))
+      ->type_name("HEIGHT")
       ->capture_default_str();
   cmd->add_option("--units", args->units,
                   "Unit of the interval, base, elevation field and labels: auto (the DEM's "
                   "vertical unit), m, ft or us-ft")
-      ->check(CLI::IsMember({"auto", "m", "ft", "us-ft"}))
+      ->check(one_of({"auto", "m", "ft", "us-ft"}))
+      ->type_name("UNIT")
       ->capture_default_str();
   cmd->add_option("--index-every", args->params.index_every, "Every Nth line is an index contour")
+      ->check(whole_number_from(1, "the index-contour step"))
+      ->type_name("N")
       ->capture_default_str();
-  cmd->add_option("--scale", args->params.scale_denominator,
-                  "Scale denominator N of 1:N the lines are prepared for")
+  cmd->add_option("--scale", args->scale,
+                  "Scale the lines are prepared for: 1:25000, 1:25 000 or 25000")
+      ->check(scale_text())
+      ->type_name("1:N")
       ->capture_default_str();
   cmd->add_option("--smoothing", args->params.smoothing_mm, "Generalisation tolerance, mm on paper")
+      ->check(number_from(0, 10, "a smoothing tolerance", "mm on paper"))
+      ->type_name("MM")
       ->capture_default_str();
   cmd->add_option("--min-loop", args->params.min_loop_mm,
                   "Closed loops shorter than this on paper are dropped, mm")
+      ->check(number_from(0, 1000, "a shortest loop", "mm on paper"))
+      ->type_name("MM")
       ->capture_default_str();
   cmd->add_flag("--half-interval", args->params.supplementary,
                 "Add half-interval lines where the ground is gentle");
@@ -53,6 +72,7 @@ void add_contours_command(CLI::App& app, Action& action, const GlobalOptions&) {
                 "text, angle_deg, up_deg)");
   cmd->callback([&action, args] {
     action = [args] {
+      args->params.scale_denominator = *parse_scale_denominator(args->scale);
       contours::ContourFileOptions options;
       options.prepare = !args->raw;
       options.labels = args->labels;
@@ -60,9 +80,10 @@ void add_contours_command(CLI::App& app, Action& action, const GlobalOptions&) {
       if (args->units == "ft") options.unit_m = kMetresPerFoot;
       if (args->units == "us-ft") options.unit_m = kMetresPerUsSurveyFoot;
       auto r = contours::contour_file(args->dem, args->out, args->params, options);
-      log::info("contours: wrote {} ({} lines at {:g} {}, {} vertices, {:.1f} km, {} labels)",
-                args->out, r.lines, r.interval, r.unit.symbol, r.vertices, r.length_m / 1000,
-                r.labels);
+      log::info("contours: wrote {} ({} at {:g} {}, {}, {:.1f} km, {})", args->out,
+                counted(r.lines, "line"), r.interval, r.unit.symbol,
+                counted(r.vertices, "vertex", "vertices"), r.length_m / 1000,
+                counted(r.labels, "label"));
       return 0;
     };
   });

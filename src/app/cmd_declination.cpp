@@ -3,6 +3,7 @@
 #include <cstdio>
 
 #include "app/commands.hpp"
+#include "app/option_checks.hpp"
 #include "sheetmill/geomag/model.hpp"
 #include "sheetmill/geomag/report.hpp"
 
@@ -15,14 +16,19 @@ void add_declination_command(CLI::App& app, Action& action, const GlobalOptions&
   auto model_file = std::make_shared<std::string>();
   cmd->add_option("--lat", q->lat_deg, "Geodetic latitude, degrees (north positive)")
       ->required()
-      ->check(CLI::Range(-90.0, 90.0));
+      ->check(number_from(-90, 90, "a latitude", "degrees"))
+      ->type_name("DEG");
   cmd->add_option("--lon", q->lon_deg, "Longitude, degrees (east positive)")
       ->required()
-      ->check(CLI::Range(-360.0, 360.0));
-  cmd->add_option("--date", q->date, "YYYY-MM-DD or a decimal year")->required();
-  cmd->add_option("--height-km", q->height_km, "Height above the WGS 84 ellipsoid, km");
+      ->check(number_from(-360, 360, "a longitude", "degrees"))
+      ->type_name("DEG");
+  cmd->add_option("--date", q->date, "YYYY-MM-DD or a decimal year")->required()->type_name("DATE");
+  cmd->add_option("--height-km", q->height_km, "Height above the WGS 84 ellipsoid, km")
+      ->check(number_from(-10, 1000, "a height", "km"))
+      ->type_name("KM");
   cmd->add_option("--model", *model_file, "World Magnetic Model coefficient file (.COF)")
-      ->required();
+      ->required()
+      ->type_name("FILE");
   cmd->callback([&action, q, model_file]() {
     action = [q, model_file]() {
       auto model = geomag::Model::load(*model_file);

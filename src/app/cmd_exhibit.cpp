@@ -5,6 +5,7 @@
 #include <string>
 
 #include "app/commands.hpp"
+#include "app/option_checks.hpp"
 #include "sheetmill/core/log.hpp"
 #include "sheetmill/exhibit/exhibit_project.hpp"
 #include "sheetmill/exhibit/render_exhibit.hpp"
@@ -23,12 +24,17 @@ void add_exhibit_command(CLI::App& app, Action& action, const GlobalOptions&) {
   auto args = std::make_shared<ExhibitArgs>();
   CLI::App* cmd = app.add_subcommand(
       "exhibit", "Render a large shaded-relief exhibit (PDF, or PNG for slides and web pages)");
-  cmd->add_option("project", args->project, "Exhibit project file (YAML)")->required();
-  cmd->add_option("-o,--output", args->output, "Output file: .pdf or .png")->required();
+  cmd->add_option("project", args->project, "Exhibit project file (YAML)")
+      ->required()
+      ->type_name("FILE");
+  cmd->add_option("-o,--output", args->output, "Output file: .pdf or .png")
+      ->required()
+      ->type_name("FILE");
   cmd->add_option("--dpi", args->dpi,
                   "PNG: image resolution (default 150); PDF: relief resolution (default: the "
                   "project's)")
-      ->check(CLI::Range(20.0, 1200.0));
+      ->check(number_from(20, 1200, "a resolution", "dots per inch"))
+      ->type_name("DPI");
   cmd->callback([args, &action] {
     action = [args] {
       exhibit::ExhibitProject project = exhibit::load_exhibit_project(args->project);

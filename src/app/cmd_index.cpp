@@ -9,6 +9,7 @@
 #include "sheetmill/batch/tile_index_io.hpp"
 #include "sheetmill/core/error.hpp"
 #include "sheetmill/core/log.hpp"
+#include "sheetmill/core/plural.hpp"
 
 namespace sheetmill::app {
 
@@ -98,8 +99,9 @@ void add_index_command(CLI::App& app, Action& action, const GlobalOptions&) {
         rows = std::max(rows, s.row);
         cols = std::max(cols, s.col);
       }
-      log::info("index: {} sheets in {} rows and {} columns written to {} (layer {})",
-                plan.sheets.size(), rows, cols, opt->output, opt->layer);
+      log::info("index: {} in {} and {} written to {} (layer {})",
+                counted(static_cast<long long>(plan.sheets.size()), "sheet"), counted(rows, "row"),
+                counted(cols, "column"), opt->output, opt->layer);
       return 0;
     };
   });

@@ -8,6 +8,8 @@
 #include <string>
 
 #include "app/commands.hpp"
+#include "app/option_checks.hpp"
+#include "sheetmill/core/file_format.hpp"
 #include "sheetmill/terrain/raster_products.hpp"
 #include "sheetmill/terrain/tint.hpp"
 
@@ -31,14 +33,19 @@ struct DemInput {
 };
 
 void add_dem_options(CLI::App* cmd, DemInput& in) {
-  cmd->add_option("DEM", in.dem, "Elevation raster (any GDAL raster, any CRS)")->required();
-  cmd->add_option("OUT", in.out, "Output GeoTIFF")->required();
-  cmd->add_option("--dem-crs", in.crs, "The DEM's CRS when the file states none (e.g. EPSG:32633)");
+  cmd->add_option("DEM", in.dem, "Elevation raster (any GDAL raster, any CRS)")
+      ->required()
+      ->type_name("FILE");
+  cmd->add_option("OUT", in.out, "Output GeoTIFF (.tif)")->required()->type_name("FILE");
+  cmd->add_option("--dem-crs", in.crs, "The DEM's CRS when the file states none (e.g. EPSG:32633)")
+      ->type_name("CRS");
   cmd->add_option("--z-unit", in.z_unit, "Elevation unit when the file does not say: m, ft, us-ft")
-      ->check(CLI::IsMember({"m", "ft", "us-ft"}));
+      ->check(one_of({"m", "ft", "us-ft"}))
+      ->type_name("UNIT");
   cmd->add_option("--compression", in.compression,
                   "zstd (fast) or deflate (read by every TIFF reader)")
-      ->check(CLI::IsMember({"zstd", "deflate"}))
+      ->check(one_of({"zstd", "deflate"}))
+      ->type_name("NAME")
       ->capture_default_str();
 }
 
@@ -53,15 +60,20 @@ struct ShadeInput {
 void add_shade_options(CLI::App* cmd, ShadeInput& s) {
   cmd->add_option("--method", s.method,
                   "Gradient and lighting: horn, zevenbergen-thorne, multidirectional")
-      ->check(CLI::IsMember({"horn", "zevenbergen-thorne", "multidirectional"}))
+      ->check(one_of({"horn", "zevenbergen-thorne", "multidirectional"}))
+      ->type_name("NAME")
       ->capture_default_str();
   cmd->add_option("--azimuth", s.azimuth_deg, "Light direction, degrees clockwise from north")
+      ->check(number_from(0, 360, "a light direction", "degrees clockwise from north"))
+      ->type_name("DEG")
       ->capture_default_str();
   cmd->add_option("--altitude", s.altitude_deg, "Light elevation above the horizon, degrees")
-      ->check(CLI::Range(0.0, 90.0))
+      ->check(number_from(0, 90, "a light elevation", "degrees above the horizon"))
+      ->type_name("DEG")
       ->capture_default_str();
   cmd->add_option("--exaggeration", s.exaggeration, "Vertical exaggeration")
-      ->check(CLI::PositiveNumber)
+      ->check(positive_number("a vertical exaggeration"))
+      ->type_name("FACTOR")
       ->capture_default_str();
 }
 
@@ -90,6 +102,7 @@ void add_relief_commands(CLI::App& app, Action& action, const GlobalOptions& glo
     add_shade_options(cmd, *shade);
     cmd->callback([&action, &global, in, shade] {
       action = [&global, in, shade] {
+        file_format_for(in->out, {FileFormat::geotiff});
         terrain::ProductOptions o;
         o.read = in->read_options();
         o.compression = in->compression;
@@ -107,13 +120,16 @@ void add_relief_commands(CLI::App& app, Action& action, const GlobalOptions& glo
         app.add_subcommand("slope", "Slope of a DEM into a Float32 GeoTIFF (holes 0 and masked)");
     add_dem_options(cmd, *in);
     cmd->add_option("--units", *units, "degrees or percent")
-        ->check(CLI::IsMember({"degrees", "percent"}))
+        ->check(one_of({"degrees", "percent"}))
+        ->type_name("UNIT")
         ->capture_default_str();
     cmd->add_option("--method", *method, "Gradient: horn or zevenbergen-thorne")
-        ->check(CLI::IsMember({"horn", "zevenbergen-thorne"}))
+        ->check(one_of({"horn", "zevenbergen-thorne"}))
+        ->type_name("NAME")
         ->capture_default_str();
     cmd->callback([&action, &global, in, units, method] {
       action = [&global, in, units, method] {
+        file_format_for(in->out, {FileFormat::geotiff});
         terrain::ProductOptions o;
         o.read = in->read_options();
         o.compression = in->compression;
@@ -133,14 +149,18 @@ void add_relief_commands(CLI::App& app, Action& action, const GlobalOptions& glo
     CLI::App* cmd = app.add_subcommand(
         "tint", "Hypsometric tint of a DEM, multiplied by its hillshade, into an RGB GeoTIFF");
     add_dem_options(cmd, *in);
-    cmd->add_option("--ramp", *ramp, "Elevation ramp file (YAML, see docs/relief.md)")->required();
+    cmd->add_option("--ramp", *ramp, "Elevation ramp file (YAML, see docs/relief.md)")
+        ->required()
+        ->type_name("FILE");
     cmd->add_flag("--rgba", *rgba, "Write RGBA (alpha 0 in holes) instead of RGB with a mask");
     cmd->add_option("--shade-strength", *strength, "0 = tint only, 1 = full hillshade multiply")
-        ->check(CLI::Range(0.0, 1.0))
+        ->check(number_from(0, 1, "a shading strength", ""))
+        ->type_name("0..1")
         ->capture_default_str();
     add_shade_options(cmd, *shade);
     cmd->callback([&action, &global, in, shade, ramp, rgba, strength] {
       action = [&global, in, shade, ramp, rgba, strength] {
+        file_format_for(in->out, {FileFormat::geotiff});
         terrain::ReliefParams p;
         p.tint = true;
         p.ramp = terrain::load_ramp_file(*ramp);

@@ -1,7 +1,10 @@
 #include <filesystem>
 
 #include "app/commands.hpp"
+#include "app/option_checks.hpp"
+#include "sheetmill/core/file_format.hpp"
 #include "sheetmill/core/log.hpp"
+#include "sheetmill/core/plural.hpp"
 #include "sheetmill/project/project.hpp"
 #include "sheetmill/render/render.hpp"
 #include "sheetmill/style/style.hpp"
@@ -13,39 +16,46 @@ struct RenderArgs {
   std::string project;
   std::string output;
   std::string sheet;
+  std::string style;
   double dpi = 150;
 };
-
-render::OutputFormat format_for(const std::filesystem::path& out) {
-  std::string ext = out.extension().string();
-  if (ext == ".png") return render::OutputFormat::png;
-  if (ext == ".tif" || ext == ".tiff") return render::OutputFormat::geotiff;
-  return render::OutputFormat::pdf;
-}
 }  // namespace
 
 void add_render_command(CLI::App& app, Action& action, const GlobalOptions&) {
   auto args = std::make_shared<RenderArgs>();
   CLI::App* cmd =
       app.add_subcommand("render", "Render one sheet of a project to PDF (or PNG/GeoTIFF)");
-  cmd->add_option("project", args->project, "Project file (YAML)")->required();
-  cmd->add_option("-o,--output", args->output, "Output file: .pdf, .png or .tif")->required();
+  cmd->add_option("project", args->project, "Project file (YAML)")->required()->type_name("FILE");
+  cmd->add_option("-o,--output", args->output,
+                  "Output file; its extension chooses the format: .pdf, .png, .tif or .tiff")
+      ->required()
+      ->type_name("FILE");
   cmd->add_option("--sheet", args->sheet,
-                  "Render this tile-index sheet instead of the project's extent");
-  cmd->add_option("--dpi", args->dpi, "Resolution of PNG/GeoTIFF output")
-      ->check(CLI::Range(20.0, 1200.0));
+                  "Render this tile-index sheet instead of the project's extent")
+      ->type_name("ID");
+  cmd->add_option("--style", args->style,
+                  "Use this style file instead of the one the project names")
+      ->type_name("FILE");
+  cmd->add_option("--dpi", args->dpi, "Resolution of PNG/GeoTIFF output, dots per inch")
+      ->check(number_from(20, 1200, "a resolution", "dots per inch"))
+      ->type_name("DPI")
+      ->capture_default_str();
   cmd->callback([args, &action] {
     action = [args] {
-      project::Project project = project::load_project(args->project);
-      style::Style style = style::load_style(project.style);
+      // The format first: a wrong extension is refused before any data is read.
       render::RenderOptions options;
-      options.format = format_for(args->output);
+      options.format =
+          file_format_for(args->output, {FileFormat::pdf, FileFormat::png, FileFormat::geotiff});
+      project::Project project = project::load_project(args->project);
+      style::Style style = style::load_style(
+          args->style.empty() ? project.style : std::filesystem::path(args->style));
       options.raster_dpi = args->dpi;
       if (!args->sheet.empty()) options.sheet_id = args->sheet;
       render::RenderReport report = render::render_sheet(project, style, args->output, options);
       for (const auto& layer : report.layers) {
-        log::info("layer {}: {} features, {} labels placed, {} dropped", layer.layer,
-                  layer.features, layer.labels_placed, layer.labels_dropped);
+        log::info("layer {}: {}, {} placed, {} dropped", layer.layer,
+                  counted(layer.features, "feature"), counted(layer.labels_placed, "label"),
+                  layer.labels_dropped);
       }
       log::info(
           "wrote {} in {:.1f} s (relief {:.1f} s, contours {:.1f} s, features {:.1f} s, "

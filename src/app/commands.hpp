@@ -16,6 +16,8 @@ struct GlobalOptions {
 };
 
 void add_render_command(CLI::App& app, Action& action, const GlobalOptions& global);
+void add_check_command(CLI::App& app, Action& action, const GlobalOptions& global);
+void add_symbols_command(CLI::App& app, Action& action, const GlobalOptions& global);
 void add_relief_commands(CLI::App& app, Action& action, const GlobalOptions& global);
 void add_contours_command(CLI::App& app, Action& action, const GlobalOptions& global);
 void add_declination_command(CLI::App& app, Action& action, const GlobalOptions& global);

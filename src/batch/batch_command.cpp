@@ -24,7 +24,7 @@ namespace sheetmill::batch {
 namespace fs = std::filesystem;
 
 std::string report_stem(const std::optional<Shard>& shard) {
-  return shard ? fmt::format("batch-report-{}-of-{}", shard->index, shard->count)
+  return shard ? fmt::format("batch-report-{}-of-{}", shard->number(), shard->count)
                : std::string("batch-report");
 }
 
@@ -58,7 +58,7 @@ int run_batch_command(const BatchRequest& req) {
     jobs = shard_sheets(jobs, *shard);
   }
   log::info("batch: {} of {} sheets selected{}", jobs.size(), index.sheets.size(),
-            shard ? fmt::format(" (shard {} of {})", shard->index, shard->count) : "");
+            shard ? fmt::format(" (shard {} of {})", shard->number(), shard->count) : "");
 
   DigestInputs digest_inputs = digest_inputs_for(project, style, index.crs_wkt, version);
   if (req.list_only) {

@@ -5,6 +5,7 @@
 #include <optional>
 
 #include "sheetmill/core/error.hpp"
+#include "sheetmill/core/scale_text.hpp"
 #include "sheetmill/core/units.hpp"
 
 namespace sheetmill::batch {
@@ -32,13 +33,10 @@ std::optional<std::pair<double, std::string>> number_and_unit(const std::string&
 }  // namespace
 
 double parse_scale(const std::string& raw, const std::string& where) {
-  std::string t = strip(raw);
-  if (t.starts_with("1:")) t = t.substr(2);
-  auto v = number_and_unit(t);
-  if (!v || !v->second.empty() || !(v->first >= 1)) {
-    throw_input_error(where, "expected a scale such as 25000 or 1:25000, got \"" + raw + "\"");
-  }
-  return v->first;
+  auto v = parse_scale_denominator(raw);
+  if (!v)
+    throw_input_error(where, std::string("expected ") + kScaleExpected + ", got \"" + raw + "\"");
+  return *v;
 }
 
 double parse_paper_length_mm(const std::string& raw, const std::string& where) {

@@ -43,7 +43,7 @@ void write_report_json(const BatchResult& r, const ReportContext& c, const fs::p
   t += "  \"project\": " + json_quote(c.project) + ",\n";
   t += "  \"program_version\": " + json_quote(c.program_version) + ",\n";
   t += "  \"finished_utc\": " + json_quote(utc_now_iso()) + ",\n";
-  t += c.shard ? fmt::format("  \"shard\": {{\"index\": {}, \"count\": {}}},\n", c.shard->index,
+  t += c.shard ? fmt::format("  \"shard\": {{\"number\": {}, \"count\": {}}},\n", c.shard->number(),
                              c.shard->count)
                : "  \"shard\": null,\n";
   t += fmt::format("  \"index_sheets\": {},\n  \"selected\": {},\n", c.index_sheets,

@@ -32,19 +32,23 @@ Shard parse_shard(const std::string& text, const std::string& where) {
   std::size_t slash = text.find('/');
   if (slash == std::string::npos) {
     throw_input_error(where,
-                      "expected a shard as K/N (for example 0/4, or auto/4), got \"" + text + "\"");
+                      "expected a shard as K/N with K from 1 to N (for example 1/4), or auto/N, "
+                      "got \"" +
+                          text + "\"");
   }
   std::string k_text = text.substr(0, slash);
   auto n = parse_long(std::string_view(text).substr(slash + 1));
   if (!n || *n < 1 || *n > 1000000) {
-    throw_input_error(where, "expected a shard count N >= 1 in \"" + text + "\"");
+    throw_input_error(where, "expected a number of shards N of at least 1 in \"" + text + "\"");
   }
+  // K counts from 1 as people count; the scheduler's array index counts from 0 (after
+  // subtracting the array's first index), so auto adds 1.
   std::optional<long> k;
   if (k_text == "auto") {
     if (auto slurm = env_long("SLURM_ARRAY_TASK_ID")) {
-      k = *slurm - env_long("SLURM_ARRAY_TASK_MIN").value_or(0);
+      k = *slurm - env_long("SLURM_ARRAY_TASK_MIN").value_or(0) + 1;
     } else if (auto indexed = env_long("JOB_COMPLETION_INDEX")) {
-      k = *indexed;
+      k = *indexed + 1;
     } else {
       throw_input_error(where,
                         "--shard auto/N needs SLURM_ARRAY_TASK_ID or JOB_COMPLETION_INDEX in the "
@@ -54,11 +58,11 @@ Shard parse_shard(const std::string& text, const std::string& where) {
     k = parse_long(k_text);
     if (!k) throw_input_error(where, "expected a shard number K in \"" + text + "\"");
   }
-  if (*k < 0 || *k >= *n) {
-    throw_input_error(
-        where, "shard " + std::to_string(*k) + " is out of range 0.." + std::to_string(*n - 1));
+  if (*k < 1 || *k > *n) {
+    throw_input_error(where, "shard " + std::to_string(*k) + " is not between 1 and " +
+                                 std::to_string(*n) + " (shards count from 1)");
   }
-  return Shard{static_cast<int>(*k), static_cast<int>(*n)};
+  return Shard{static_cast<int>(*k - 1), static_cast<int>(*n)};
 }
 
 std::vector<SheetJob> select_sheets(const std::vector<SheetJob>& jobs, const Selection& selection,

@@ -6,6 +6,8 @@
 #include <fstream>
 #include <sstream>
 
+#include "sheetmill/core/scale_text.hpp"
+
 namespace sheetmill::config {
 
 namespace fs = std::filesystem;
@@ -204,6 +206,13 @@ double ConfigNode::as_angle_deg() const {
     return v;
   }
   fail_expected("an angle in degrees such as 315 or 45deg");
+}
+
+double ConfigNode::as_scale() const {
+  if (node_.IsScalar()) {
+    if (auto n = parse_scale_denominator(node_.Scalar())) return *n;
+  }
+  fail_expected(kScaleExpected);
 }
 
 std::vector<double> ConfigNode::as_numbers(std::size_t n) const {

@@ -191,8 +191,7 @@ ExhibitProject read(const ConfigNode& root) {
     extent.fail_expected("[min_e, min_n, max_e, max_n] with max > min");
   p.extent = Box::of(v[0], v[1], v[2], v[3]);
   if (auto s = root.find("scale")) {
-    p.scale = s->as_number();
-    if (!(*p.scale >= 1)) s->fail_expected("a scale denominator N of 1:N, N >= 1");
+    p.scale = s->as_scale();
   }
   read_relief(root.at("relief"), p.relief);
   if (auto c = root.find("context")) {

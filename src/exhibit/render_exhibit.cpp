@@ -10,6 +10,7 @@
 #include "exhibit/repeat_filter.hpp"
 #include "sheetmill/core/atomic_file.hpp"
 #include "sheetmill/core/error.hpp"
+#include "sheetmill/core/file_format.hpp"
 #include "sheetmill/core/handles.hpp"
 #include "sheetmill/core/log.hpp"
 #include "sheetmill/core/units.hpp"
@@ -23,10 +24,9 @@
 namespace sheetmill::exhibit {
 
 ExhibitFormat format_for_path(const std::filesystem::path& output) {
-  std::string ext = output.extension().string();
-  std::transform(ext.begin(), ext.end(), ext.begin(),
-                 [](unsigned char c) { return std::tolower(c); });
-  return ext == ".png" ? ExhibitFormat::png : ExhibitFormat::pdf;
+  return file_format_for(output, {FileFormat::pdf, FileFormat::png}) == FileFormat::png
+             ? ExhibitFormat::png
+             : ExhibitFormat::pdf;
 }
 
 namespace {

@@ -7,6 +7,7 @@
 #include "sheetmill/core/error.hpp"
 #include "sheetmill/core/gdal_env.hpp"
 #include "sheetmill/core/log.hpp"
+#include "sheetmill/core/plural.hpp"
 #include "sheetmill/features/clip.hpp"
 
 namespace sheetmill::features {
@@ -191,8 +192,8 @@ ReadSummary read_features(const project::Source& source, const ReadRequest& requ
     throw_input_error(source.path, "source '" + source.name + "': where: not an OGR SQL filter: " +
                                        source.where + " (" + errors.last_failure() + ")");
   if (summary.failed)
-    log::warn("source '{}': {} features could not be reprojected to the sheet CRS", source.name,
-              summary.failed);
+    log::warn("source '{}': {} could not be reprojected to the sheet CRS", source.name,
+              counted(summary.failed, "feature"));
   return summary;
 }
 

@@ -164,9 +164,7 @@ Project load_project(const std::filesystem::path& path) {
   if (auto c = root.find("credits")) p.data_credits = read_strings(*c);
   if (auto n = root.find("notes")) p.notes = read_strings(*n);
   p.crs = root.at("crs").as_string();
-  auto scale = root.at("scale");
-  p.scale = scale.as_number();
-  if (p.scale < 1) scale.fail_expected("a scale denominator N of 1:N, such as 25000");
+  p.scale = root.at("scale").as_scale();
   p.paper = read_paper(root.at("paper"));
   if (auto m = root.find("margin")) p.margin_mm = m->as_length_mm();
   p.extent = read_extent(root.at("extent"));

@@ -7,6 +7,7 @@
 
 #include "render/line_chains.hpp"
 #include "sheetmill/core/log.hpp"
+#include "sheetmill/core/plural.hpp"
 #include "sheetmill/draw/area.hpp"
 #include "sheetmill/draw/line.hpp"
 #include "sheetmill/draw/point.hpp"
@@ -243,7 +244,7 @@ FeatureLayersResult prepare_feature_layers(const project::Project& project,
       for (const Polyline& chain : chain_lines(std::move(pieces)))
         for (auto& c : labels::line_names(fonts, *key.first, key.second, chain, layer.id))
           result.name_candidates.push_back(std::move(c));
-    log::debug("layer '{}': {} features", layer.id, report.features);
+    log::debug("layer '{}': {}", layer.id, counted(report.features, "feature"));
 
     for (const PreparedRule& pr : prepared.rules)
       if (pr.features > 0 && !pr.rule->legend.empty()) result.legend_rules.push_back(pr.rule);

@@ -2,6 +2,7 @@
 #include <algorithm>
 #include <map>
 
+#include "sheetmill/core/scale_text.hpp"
 #include "style/reader.hpp"
 
 namespace sheetmill::style {
@@ -13,11 +14,9 @@ using detail::Reader;
 
 // "1:25000" or 25000; "any" for an open end (0).
 double read_scale(const ConfigNode& n) {
-  std::string s = n.as_string();
-  if (s == "any") return 0;
-  if (s.rfind("1:", 0) == 0) s = s.substr(2);
-  auto v = detail::parse_number(s);
-  if (!v || !(*v >= 1)) n.fail_expected("a scale such as 1:25000 (or any)");
+  if (n.as_string() == "any") return 0;
+  auto v = parse_scale_denominator(n.as_string());
+  if (!v) n.fail_expected(std::string(kScaleExpected) + ", or any");
   return *v;
 }
 

@@ -56,17 +56,37 @@ TEST_CASE("shards together cover every sheet exactly once", "[batch]") {
   CHECK(ia == ib);
 }
 
+TEST_CASE("shards 1/N to N/N, as written on the command line, cover every sheet once", "[batch]") {
+  const std::vector<SheetJob> all = jobs(37);
+  for (int n : {1, 2, 3, 6, 37, 50}) {
+    std::map<std::string, int> seen;
+    for (int k = 1; k <= n; ++k) {
+      Shard s = parse_shard(std::to_string(k) + "/" + std::to_string(n), "--shard");
+      CHECK(s.number() == k);
+      for (const auto& j : shard_sheets(all, s)) ++seen[j.id];
+    }
+    INFO("shards " << n);
+    CHECK(seen.size() == all.size());
+    for (const auto& [id, times] : seen) CHECK(times == 1);
+  }
+}
+
 TEST_CASE("the shard number comes from K/N or the scheduler's array index", "[batch]") {
-  CHECK(parse_shard("0/4", "t").index == 0);
+  // K counts from 1 as people count: 1/4 is the first share, 4/4 the last.
+  CHECK(parse_shard("1/4", "t").index == 0);
+  CHECK(parse_shard("1/4", "t").number() == 1);
+  CHECK(parse_shard("4/4", "t").index == 3);
   CHECK(parse_shard("3/4", "t").count == 4);
-  CHECK_THROWS_AS(parse_shard("4/4", "t"), sheetmill::Error);
+  CHECK_THROWS_AS(parse_shard("0/4", "t"), sheetmill::Error);
+  CHECK_THROWS_AS(parse_shard("5/4", "t"), sheetmill::Error);
   CHECK_THROWS_AS(parse_shard("-1/4", "t"), sheetmill::Error);
   CHECK_THROWS_AS(parse_shard("1/0", "t"), sheetmill::Error);
   CHECK_THROWS_AS(parse_shard("x", "t"), sheetmill::Error);
   ::unsetenv("SLURM_ARRAY_TASK_ID");
   ::unsetenv("SLURM_ARRAY_TASK_MIN");
   ::setenv("JOB_COMPLETION_INDEX", "2", 1);
-  CHECK(parse_shard("auto/3", "t").index == 2);
+  CHECK(parse_shard("auto/3", "t").index == 2);  // the third share, shown as 3 of 3
+  CHECK(parse_shard("auto/3", "t").number() == 3);
   // An array declared as --array=1-4 numbers its tasks from 1.
   ::setenv("SLURM_ARRAY_TASK_ID", "4", 1);
   ::setenv("SLURM_ARRAY_TASK_MIN", "1", 1);

@@ -19,9 +19,11 @@ struct Selection {
 };
 
 // Task `index` of `count` (0 <= index < count).
+// Share `index` (0-based, for arithmetic) of `count`; people see number() = index + 1.
 struct Shard {
   int index = 0;
   int count = 1;
+  int number() const { return index + 1; }
 };
 
 // Parses "K/N" (0-based K). K may be "auto": then it comes from the scheduler's array index,

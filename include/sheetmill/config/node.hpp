@@ -63,6 +63,8 @@ class ConfigNode {
   double as_angle_deg() const;
   // A ground distance with its unit: m, km, ft, mi. Returns metres.
   double as_ground_length_m() const;
+  // A map scale: "1:25000", "1:25 000" or 25000 (core/scale_text.hpp). Returns N of 1:N.
+  double as_scale() const;
   // A sequence of exactly n numbers.
   std::vector<double> as_numbers(std::size_t n) const;
   // A path, resolved against the document's folder unless absolute.

@@ -7,6 +7,7 @@
 #include <string>
 #include <vector>
 
+#include "sheetmill/core/file_format.hpp"
 #include "sheetmill/project/project.hpp"
 #include "sheetmill/sheet/tile_index.hpp"
 #include "sheetmill/style/style.hpp"
@@ -14,7 +15,7 @@
 
 namespace sheetmill::render {
 
-enum class OutputFormat { pdf, png, geotiff };
+using OutputFormat = FileFormat;  // chosen by the output's extension: core/file_format.hpp
 
 struct RenderOptions {
   OutputFormat format = OutputFormat::pdf;
