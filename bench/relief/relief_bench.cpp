@@ -2,6 +2,8 @@
 //   relief_bench kernel DEM.tif          hillshade kernel throughput, 1 thread and all cores
 //   relief_bench sheet DEM.tif           warp + relief for an A1 sheet at 300 dpi
 //   relief_bench compare A.tif B.tif     interior cells: max |A - B| and share identical
+//   relief_bench resampling DEM.tif [K]  A1 300 dpi warp, bilinear against auto, side by side;
+//                                        K > 1 makes the print cells K times coarser
 //   relief_bench shade DEM.tif OUT.tif   the library path of `sheetmill shade`
 // Times are medians of several runs (steady_clock), printed one result per line.
 #include <gdal_priv.h>
@@ -23,6 +25,7 @@
 #include "sheetmill/terrain/dem_source.hpp"
 #include "sheetmill/terrain/raster_products.hpp"
 #include "sheetmill/terrain/relief.hpp"
+#include "sheetmill/terrain/resampling.hpp"
 #include "sheetmill/terrain/shade.hpp"
 #include "sheetmill/terrain/shade_kernel.hpp"
 
@@ -114,13 +117,14 @@ int kernel(const std::string& path) {
   return 0;
 }
 
-int sheet(const std::string& path) {
-  // An A1 sheet (594 x 841 mm, ISO 216) at 300 dpi over the DEM's centre, at the scale that
-  // makes the sheet's height span the DEM: 7016 x 9934 cells, about 70 M, all with data.
+// An A1 sheet (594 x 841 mm, ISO 216) at 300 dpi over the DEM's centre, at the scale that
+// makes the sheet's height span the DEM: 7016 x 9934 cells, about 70 M, all with data. With
+// `coarser` > 1 the cells are that many times larger (and fewer: the same ground).
+RasterGrid a1_grid(const std::string& path, double coarser = 1) {
   DemSource src(path);
   const RasterGrid& g = src.grid();
-  const int w = static_cast<int>(std::ceil(594 / kMmPerInch * 300));
-  const int h = static_cast<int>(std::ceil(841 / kMmPerInch * 300));
+  const int w = static_cast<int>(std::ceil(594 / kMmPerInch * 300 / coarser));
+  const int h = static_cast<int>(std::ceil(841 / kMmPerInch * 300 / coarser));
   RasterGrid target;
   target.width = w;
   target.height = h;
@@ -131,6 +135,36 @@ int sheet(const std::string& path) {
   target.geotransform[3] = b.centre().y + cell * h / 2;
   target.geotransform[5] = -cell;
   target.crs_wkt = g.crs_wkt;
+  return target;
+}
+
+// The sheet relief's warp with its default (auto) against bilinear, alternating A/B pairs on
+// the same grid, medians of wall time.
+int resampling(const std::string& path, double coarser) {
+  const RasterGrid target = a1_grid(path, coarser);
+  const double dem_cell = native_cell_m(path);
+  const Resampling chosen = choose_resampling(Resampling::automatic, target.cell_x(), dem_cell);
+  std::vector<double> bilinear, automatic;
+  for (int i = 0; i < 7; ++i) {
+    for (const char* name : {"bilinear", "auto"}) {
+      DemReadOptions o;
+      o.resampling = name;
+      auto t0 = Clock::now();
+      Dem dem = read_dem_window(path, target, o);
+      (std::string(name) == "auto" ? automatic : bilinear).push_back(seconds_since(t0));
+    }
+  }
+  std::printf(
+      "warp %d x %d (%.2f m print cells, %.1f m DEM cells): bilinear %.3f s, auto (%s) %.3f s, "
+      "ratio %.2f (medians of 7 A/B pairs)\n",
+      target.width, target.height, target.cell_x(), dem_cell, median(bilinear),
+      resampling_name(chosen), median(automatic), median(automatic) / median(bilinear));
+  return 0;
+}
+
+int sheet(const std::string& path) {
+  const RasterGrid target = a1_grid(path);
+  const int w = target.width, h = target.height;
   ReliefParams params;
   params.tint = true;
   params.ramp = {{{0, {0.35, 0.55, 0.35, 1}}, {600, {0.9, 0.85, 0.65, 1}}}, false, 0};
@@ -198,11 +232,15 @@ int main(int argc, char** argv) {
   if (cmd == "kernel" && argc == 3) return kernel(argv[2]);
   if (cmd == "sheet" && argc == 3) return sheet(argv[2]);
   if (cmd == "compare" && argc == 4) return compare(argv[2], argv[3]);
+  if (cmd == "resampling" && (argc == 3 || argc == 4)) {
+    return resampling(argv[2], argc == 4 ? std::atof(argv[3]) : 1.0);
+  }
   if (cmd == "shade" && argc == 4) {  // the library path of `sheetmill shade`, no CLI
     if (std::getenv("RELIEF_BENCH_DEBUG")) log::set_level(log::Level::debug);
     write_hillshade_raster(argv[2], argv[3], {});
     return 0;
   }
-  std::fprintf(stderr, "usage: relief_bench kernel DEM | sheet DEM | compare A B\n");
+  std::fprintf(stderr,
+               "usage: relief_bench kernel DEM | sheet DEM | resampling DEM [K] | compare A B\n");
   return 2;
 }

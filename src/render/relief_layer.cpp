@@ -51,7 +51,9 @@ bool draw_relief(cairo_t* cr, const project::Project& project, const style::Styl
   // Two cells of margin: the gradient kernels read one neighbour, resampling another.
   const int margin = 2;
   RasterGrid grid = grid_for_frame(frame, dpi, margin);
-  terrain::Dem dem = terrain::read_dem_window(project.elevation.dem, grid, dem_options(project));
+  terrain::DemReadOptions read_options = dem_options(project);
+  read_options.resampling = rs.resampling;  // auto: cubic when upsampling, else average
+  terrain::Dem dem = terrain::read_dem_window(project.elevation.dem, grid, read_options);
   if (dem.valid_count() == 0) {
     log::warn("{}: no elevation data under the map frame; the sheet has no relief",
               project.elevation.dem);
@@ -68,6 +70,7 @@ bool draw_relief(cairo_t* cr, const project::Project& project, const style::Styl
   params.shading.altitude_deg = rs.altitude_deg;
   params.shading.exaggeration = rs.exaggeration;
   params.shade_strength = rs.shade_strength;
+  params.flat_ground_white = rs.flat_ground_white;
   params.tint = rs.tint;
   for (const auto& s : rs.tint_stops) params.ramp.stops.emplace_back(s.elevation_m, s.colour);
   params.ramp.stepped = rs.tint_stepped;

@@ -27,7 +27,8 @@ void read_shading(const ConfigNode& n, ReliefStyle& r) {
     r.hillshade = false;
     return;
   }
-  n.expect_keys({"method", "light_azimuth", "light_altitude", "exaggeration", "strength"});
+  n.expect_keys(
+      {"method", "light_azimuth", "light_altitude", "exaggeration", "strength", "flat_ground"});
   r.hillshade = true;
   if (auto m = n.find("method")) {
     r.method = m->as_choice({"horn", "zevenbergen-thorne", "multidirectional"});
@@ -47,6 +48,8 @@ void read_shading(const ConfigNode& n, ReliefStyle& r) {
     if (!(r.exaggeration > 0 && r.exaggeration <= 100)) e->fail_expected("a factor above 0");
   }
   if (auto s = n.find("strength")) r.shade_strength = read_fraction(*s);
+  if (auto f = n.find("flat_ground"))
+    r.flat_ground_white = f->as_choice({"white", "grey"}) == "white";
 }
 
 // `over: [low, high]` for a built-in ramp or for stops given in percent.
@@ -126,13 +129,16 @@ ReliefStyle default_relief() {
 }
 
 ReliefStyle read_relief(const ConfigNode& n, Reader& rd, ReliefStyle r) {
-  n.expect_keys({"shading", "tint", "water_shade", "raster_dpi"});
+  n.expect_keys({"shading", "tint", "water_shade", "raster_dpi", "resampling"});
   if (auto s = n.find("shading")) read_shading(*s, r);
   if (auto t = n.find("tint")) read_tint(*t, rd, r);
   if (auto w = n.find("water_shade")) r.water_shade = rd.colour(*w);
   if (auto d = n.find("raster_dpi")) {
     r.dpi = d->as_number();
     if (!(r.dpi >= 50 && r.dpi <= 1200)) d->fail_expected("a resolution from 50 to 1200 dpi");
+  }
+  if (auto s = n.find("resampling")) {
+    r.resampling = s->as_choice({"auto", "cubic", "bilinear", "average"});
   }
   return r;
 }

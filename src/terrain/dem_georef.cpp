@@ -92,6 +92,24 @@ GroundScale ground_scale(const OGRSpatialReference& srs) {
   return g;
 }
 
+double native_cell_m(GDALDataset& ds, const OGRSpatialReference& srs, const std::string& path) {
+  Dem probe;
+  probe.grid.width = ds.GetRasterXSize();
+  probe.grid.height = ds.GetRasterYSize();
+  if (ds.GetGeoTransform(probe.grid.geotransform) != CE_None) {
+    throw_input_error(path, "the DEM has no geotransform");
+  }
+  // Rotated grids: the cell's side lengths, not the geotransform's diagonal terms.
+  double* gt = probe.grid.geotransform;
+  double sx = std::hypot(gt[1], gt[4]);
+  double sy = std::hypot(gt[2], gt[5]);
+  gt[1] = sx;
+  gt[5] = -sy;
+  gt[2] = gt[4] = 0;
+  set_ground_cell_size(probe, srs);
+  return std::sqrt(probe.cell_x_m * probe.cell_y_m);
+}
+
 void set_ground_cell_size(Dem& dem, const OGRSpatialReference& srs) {
   set_ground_cell_size(dem, ground_scale(srs));
 }

@@ -28,4 +28,8 @@ GroundScale ground_scale(const OGRSpatialReference& srs);
 void set_ground_cell_size(Dem& dem, const GroundScale& scale);
 void set_ground_cell_size(Dem& dem, const OGRSpatialReference& srs);
 
+// The DEM's own cell size in ground metres (geometric mean of the two sides, at the centre
+// latitude for geographic DEMs). Throws Error(input) naming `path` without a geotransform.
+double native_cell_m(GDALDataset& ds, const OGRSpatialReference& srs, const std::string& path);
+
 }  // namespace sheetmill::terrain::detail

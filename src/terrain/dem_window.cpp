@@ -11,6 +11,7 @@
 #include "sheetmill/core/gdal_env.hpp"
 #include "sheetmill/core/log.hpp"
 #include "sheetmill/terrain/dem.hpp"
+#include "sheetmill/terrain/resampling.hpp"
 #include "terrain/dem_georef.hpp"
 
 namespace sheetmill::terrain {
@@ -23,13 +24,33 @@ std::size_t Dem::valid_count() const {
 
 namespace {
 
-GDALResampleAlg resampling_of(const std::string& name) {
-  if (name == "bilinear") return GRA_Bilinear;
-  if (name == "cubic") return GRA_Cubic;
+// GDAL's kernel for a resampling name. "auto" (and the other names of Resampling) go through
+// choose_resampling() with the target's ground cell against the DEM's own.
+GDALResampleAlg resampling_of(const std::string& name, GDALDataset& src,
+                              const OGRSpatialReference& src_srs, const RasterGrid& target,
+                              const OGRSpatialReference& dst_srs, const std::string& path) {
   if (name == "cubicspline") return GRA_CubicSpline;
   if (name == "near" || name == "nearest") return GRA_NearestNeighbour;
   if (name == "lanczos") return GRA_Lanczos;
-  throw_input_error(name, "resampling: expected one of bilinear, cubic, cubicspline, near");
+  Resampling asked = parse_resampling(name);
+  if (asked == Resampling::automatic) {
+    Dem probe;
+    probe.grid = target;
+    detail::set_ground_cell_size(probe, dst_srs);
+    const double print_cell_m = std::sqrt(probe.cell_x_m * probe.cell_y_m);
+    const double dem_cell_m = detail::native_cell_m(src, src_srs, path);
+    asked = choose_resampling(asked, print_cell_m, dem_cell_m);
+    log::debug("{}: {} resampling ({:.3g} m print cells, {:.3g} m DEM cells)", path,
+               resampling_name(asked), print_cell_m, dem_cell_m);
+  }
+  switch (asked) {
+    case Resampling::cubic:
+      return GRA_Cubic;  // Keys (1981) cubic convolution with a = -0.5
+    case Resampling::average:
+      return GRA_Average;
+    default:
+      return GRA_Bilinear;
+  }
 }
 
 bool has_georeferencing(GDALDataset& ds) {
@@ -143,7 +164,7 @@ Dem read_dem_window(const std::string& path, const RasterGrid& target,
   wo->panDstBands = static_cast<int*>(CPLMalloc(sizeof(int)));
   wo->panSrcBands[0] = 1;
   wo->panDstBands[0] = 1;
-  wo->eResampleAlg = resampling_of(options.resampling);
+  wo->eResampleAlg = resampling_of(options.resampling, *src, src_srs, target, dst_srs, path);
   wo->eWorkingDataType = GDT_Float32;
   wo->dfWarpMemoryLimit = 128.0 * 1024 * 1024;  // per chunk; the target itself is separate
   wo->pfnTransformer = GDALApproxTransform;
@@ -202,21 +223,7 @@ double vertical_unit_m(const std::string& path, const DemReadOptions& options) {
 double native_cell_m(const std::string& path, const DemReadOptions& options) {
   DatasetPtr src = open_raster(path);
   OGRSpatialReference srs = detail::dem_crs(*src, options, path);
-  Dem probe;
-  probe.grid.width = src->GetRasterXSize();
-  probe.grid.height = src->GetRasterYSize();
-  if (src->GetGeoTransform(probe.grid.geotransform) != CE_None) {
-    throw_input_error(path, "the DEM has no geotransform");
-  }
-  // Rotated grids: the cell's side lengths, not the geotransform's diagonal terms.
-  double* gt = probe.grid.geotransform;
-  double sx = std::hypot(gt[1], gt[4]);
-  double sy = std::hypot(gt[2], gt[5]);
-  gt[1] = sx;
-  gt[5] = -sy;
-  gt[2] = gt[4] = 0;
-  detail::set_ground_cell_size(probe, srs);
-  return std::sqrt(probe.cell_x_m * probe.cell_y_m);
+  return detail::native_cell_m(*src, srs, path);
 }
 
 }  // namespace sheetmill::terrain

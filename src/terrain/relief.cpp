@@ -4,6 +4,7 @@
 #include <cmath>
 
 #include "sheetmill/core/error.hpp"
+#include "sheetmill/terrain/shade_kernel.hpp"
 #include "terrain/parallel_rows.hpp"
 
 namespace sheetmill::terrain {
@@ -27,10 +28,16 @@ void compose(const Dem& dem, const ReliefParams& params, const std::uint8_t* sha
   const double s = std::clamp(params.shade_strength, 0.0, 1.0);
   const double opacity = std::clamp(params.tint_strength, 0.0, 1.0);
   // The shading factor and the ink pixel depend only on the hillshade byte: tabulate them.
+  // White flat ground divides by the decoded byte of level ground (not by sin(altitude)
+  // itself), so level ground maps to exactly 1 whatever the rounding of its byte.
+  const double flat =
+      (detail::encode_shade(static_cast<float>(flat_illumination(params.shading))) - 1) / 254.0;
+  const bool normalise = params.flat_ground_white && flat > 0;
   double factor_of[256];
   std::uint32_t ink_of[256];
   for (int b = 0; b < 256; ++b) {
     double illum = b == 0 ? 0.0 : (b - 1) / 254.0;
+    if (normalise) illum = std::min(1.0, illum / flat);
     factor_of[b] = 1.0 - s + s * illum;
     ink_of[b] = pack(1.0 - factor_of[b], 0, 0, 0);  // black ink: multiplies what lies under it
   }

@@ -83,6 +83,12 @@ void hillshade_rows(const Dem& dem, const ShadeParams& params, int row0, int row
   }
 }
 
+double flat_illumination(const ShadeParams& params) {
+  // Single light: cos i = sin(alt) at p = q = 0 (shade_kernel.hpp); Mark (1992) as GDAL weights
+  // it returns sin(alt) for a flat cell by definition (illumination_multi()).
+  return std::sin(params.altitude_deg * kDegToRad);
+}
+
 std::vector<std::uint8_t> hillshade(const Dem& dem, const ShadeParams& params) {
   check_params(dem, params);
   std::vector<std::uint8_t> out(static_cast<std::size_t>(dem.width()) * dem.height());

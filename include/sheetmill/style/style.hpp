@@ -162,7 +162,8 @@ struct ReliefStyle {
   double azimuth_deg = 315;
   double altitude_deg = 45;
   double exaggeration = 1;
-  double shade_strength = 0.5;  // 0 = no shading, 1 = full multiply
+  double shade_strength = 0.5;    // 0 = no shading, 1 = full multiply
+  bool flat_ground_white = true;  // shading.flat_ground: white (only shadows add tone) | grey
   bool tint = false;
   std::vector<TintStop> tint_stops;
   bool tint_stepped = false;
@@ -170,6 +171,7 @@ struct ReliefStyle {
   double tint_strength = 1.0;
   std::optional<Colour> water_shade;  // optional soft shading of water bodies
   double dpi = 300;                   // relief raster resolution on paper
+  std::string resampling = "auto";    // DEM to print grid: auto | cubic | bilinear | average
 };
 
 struct ContourStyle {

@@ -43,7 +43,9 @@ struct GroundScale {
 };
 
 struct DemReadOptions {
-  // GDAL resampling name for warping: "bilinear" (default), "cubic", "cubicspline", "near".
+  // Resampling into the target grid: "bilinear" (default, exact on planes), "cubic", "average",
+  // "auto" (cubic when the target is finer than the DEM, average when a target cell spans
+  // several DEM cells; see resampling.hpp), or GDAL's "cubicspline", "near".
   std::string resampling = "bilinear";
   // The DEM's CRS when the file has none (any string GDAL's SetFromUserInput accepts, for
   // instance "EPSG:32633"). Ignored when the file states its own CRS.

@@ -8,6 +8,12 @@
 // colour's alpha. Without a tint the image is a black ink layer of alpha s * (1 - shade):
 // painted over anything (paper, area fills) it multiplies what is under it by (1 - s + s*shade),
 // the same blend.
+//
+// `flat_ground_white` changes what `shade` is: tone = min(1, I / I_flat) with I_flat the
+// illumination of level ground (sin(altitude), for one light and for the multidirectional
+// kernel alike), so flat ground and slopes facing the light print paper-white and only shadows
+// add tone, as printed topographic relief does (common practice). Without it `shade` is the
+// illumination itself, and flat ground is darkened by s * (1 - sin(altitude)).
 
 #include <cstdint>
 #include <functional>
@@ -23,7 +29,8 @@ namespace sheetmill::terrain {
 struct ReliefParams {
   bool shade = true;
   ShadeParams shading;
-  double shade_strength = 0.5;  // 0..1
+  double shade_strength = 0.5;     // 0..1
+  bool flat_ground_white = false;  // tone = min(1, I / I_flat), see above
   bool tint = false;
   TintRamp ramp;
   double tint_strength = 1.0;  // 0..1

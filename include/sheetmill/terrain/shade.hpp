@@ -33,6 +33,10 @@ struct ShadeParams {
 ShadeMethod parse_shade_method(const std::string& name);
 const char* shade_method_name(ShadeMethod method);
 
+// The illumination of level ground: sin(altitude) for every method (the multidirectional
+// kernel gives a flat cell sin(altitude) too).
+double flat_illumination(const ShadeParams& params);
+
 // One byte per cell, row-major, dem.width() * dem.height(). Uses both cores.
 std::vector<std::uint8_t> hillshade(const Dem& dem, const ShadeParams& params);
 
