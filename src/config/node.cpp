@@ -4,7 +4,8 @@
 #include <charconv>
 #include <cmath>
 #include <fstream>
-#include <sstream>
+
+#include "config/yaml_limits.hpp"
 
 namespace sheetmill::config {
 
@@ -230,6 +231,7 @@ std::string ConfigNode::as_data_source() const {
 namespace {
 ConfigNode parse(const std::string& text, const std::string& name) {
   auto file = std::make_shared<const std::string>(name);
+  detail::check_yaml_limits(text, name);
   YAML::Node root;
   try {
     root = YAML::Load(text);
@@ -246,9 +248,12 @@ ConfigNode parse(const std::string& text, const std::string& name) {
 ConfigNode load_file(const fs::path& path) {
   std::ifstream in(path, std::ios::binary);
   if (!in) throw_input_error(path.string(), "file not found or not readable");
-  std::stringstream ss;
-  ss << in.rdbuf();
-  return parse(ss.str(), path.string());
+  // A bounded read: one byte past the limit is enough to refuse a huge file or a device that
+  // never ends (/dev/zero), and nothing more is read.
+  std::string text(detail::max_document_bytes + 1, '\0');
+  in.read(text.data(), static_cast<std::streamsize>(text.size()));
+  text.resize(static_cast<std::size_t>(in.gcount()));
+  return parse(text, path.string());
 }
 
 ConfigNode load_string(const std::string& text, const std::string& name) {
