@@ -86,13 +86,12 @@ TEST_CASE("a sheet ID that is not valid UTF-8 is refused naming its feature",
   CHECK(error_of([&] { batch::read_tile_index(path, "sheets", "sheet_id", "name"); }) ==
         "index.gpkg: feature 2: the sheet ID \"B\\xFF\\xFE\" is not valid UTF-8 (byte 2); fix the "
         "ID in the tile index");
+  // A direction override is text: allowed in an ID (file names replace it), shown escaped.
   test::TempDir dir2("tile-index-bidi");
   path = write_index(dir2, {{"A1"},
                             {"\xe2\x80\xae"
                              "1A"}});
-  CHECK(error_of([&] { batch::read_tile_index(path, "sheets", "sheet_id", "name"); }) ==
-        "index.gpkg: feature 2: the sheet ID \"\\u{202E}1A\" holds a control or direction "
-        "character; fix the ID in the tile index");
+  CHECK(batch::read_tile_index(path, "sheets", "sheet_id", "name").sheets.size() == 2);
 }
 
 TEST_CASE("a footprint with a NaN vertex is refused by its ID, the others read",
