@@ -28,4 +28,8 @@ inline constexpr int max_id_pad_digits = 16;
 // The most marks, hatching lines or pattern symbols one feature may generate on a sheet.
 inline constexpr std::size_t max_symbols_per_feature = 1'000'000;
 
+// The largest DEM the relief raster commands (shade, slope, tint) turn into a raster of its own
+// grid: 10^10 cells, a 100,000 x 100,000 DEM, some hours of work and tens of GB of output.
+inline constexpr double max_relief_raster_cells = 1e10;
+
 }  // namespace sheetmill::config::bounds
