@@ -13,6 +13,7 @@ SHEETMILL_PACKAGES=(
   fonts-dejavu-core fonts-noto-core poppler-utils qpdf python3
   python3-yaml python3-jsonschema
   slurm-wlm munge
+  clang-14 libclang-rt-14-dev
 )
 
 sheetmill_install_packages() {

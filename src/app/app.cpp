@@ -6,6 +6,7 @@
 #include "app/commands.hpp"
 #include "app/option_checks.hpp"
 #include "sheetmill/core/error.hpp"
+#include "sheetmill/core/gdal_env.hpp"
 #include "sheetmill/core/log.hpp"
 
 namespace sheetmill::app {
@@ -74,6 +75,7 @@ int run(int argc, const char* const* argv) {
                  : global.verbose ? log::Level::debug
                                   : log::Level::info);
   try {
+    gdal_init();  // from here on GDAL's own messages go through the log
     return action ? action() : 0;
   } catch (const Error& e) {
     std::fprintf(stderr, "sheetmill: %s%s\n",

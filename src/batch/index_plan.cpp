@@ -4,11 +4,13 @@
 #include <ogr_geometry.h>
 #include <ogr_spatialref.h>
 
+#include <array>
 #include <cmath>
 #include <map>
 #include <memory>
 #include <set>
 
+#include "sheetmill/config/bounds.hpp"
 #include "sheetmill/core/error.hpp"
 #include "sheetmill/core/gdal_env.hpp"
 #include "sheetmill/core/handles.hpp"
@@ -57,6 +59,12 @@ std::string expand_sheet_template(const std::string& t, const IndexSheet& s, con
       } catch (const std::exception&) {
         throw_input_error("--id-template", "expected {field:WIDTH} in \"" + t + "\"");
       }
+      if (pad < 0 || pad > config::bounds::max_id_pad_digits) {
+        throw_input_error(
+            "--id-template",
+            fmt::format("expected a WIDTH from 0 to {} in {{field:WIDTH}}, got \"{}\"",
+                        config::bounds::max_id_pad_digits, t));
+      }
       token = token.substr(0, colon);
     }
     std::string v;
@@ -96,13 +104,23 @@ std::unique_ptr<OGRSpatialReference> parse_crs(const std::string& text) {
   return srs;
 }
 
-// Lattice cells [i0, i1] x [j0, j1] are refused beyond kMaxSheets, before any is made (a frame
-// "at this scale" or graticule cell "at this size" far too small for the area).
-void check_lattice_size(long i0, long i1, long j0, long j1, const char* at_this) {
-  if ((i1 - i0 + 1) * (j1 - j0 + 1) > kMaxSheets) {
+// Lattice cells [i0, i1] x [j0, j1], computed in double, are refused beyond kMaxSheets (a
+// frame "at this scale" or graticule cell "at this size" far too small for the area) or beyond
+// the range of a cell number, before any is made or cast.
+std::array<long, 4> lattice_range(double i0, double i1, double j0, double j1, const char* at_this) {
+  if (!((i1 - i0 + 1) * (j1 - j0 + 1) <= static_cast<double>(kMaxSheets))) {
     throw_input_error("--extent",
                       std::string("the area needs more than a million sheets at this ") + at_this);
   }
+  for (double v : {i0, i1, j0, j1}) {
+    if (!(std::abs(v) < 1e9)) {
+      throw_input_error("--extent", std::string("the area lies more than a billion sheets from "
+                                                "the CRS's origin at this ") +
+                                        at_this);
+    }
+  }
+  return {static_cast<long>(i0), static_cast<long>(i1), static_cast<long>(j0),
+          static_cast<long>(j1)};
 }
 
 std::vector<Cell> grid_cells(const IndexSpec& spec, IndexPlan& plan) {
@@ -135,11 +153,9 @@ std::vector<Cell> grid_cells(const IndexSpec& spec, IndexPlan& plan) {
   double step_y = h - overlap;
   const Box& a = spec.area;
   // Lattice cell i covers [i*step, i*step + size]; keep those overlapping the area's interior.
-  long i0 = static_cast<long>(std::floor((a.min_x - w) / step_x)) + 1;
-  long i1 = static_cast<long>(std::ceil(a.max_x / step_x)) - 1;
-  long j0 = static_cast<long>(std::floor((a.min_y - h) / step_y)) + 1;
-  long j1 = static_cast<long>(std::ceil(a.max_y / step_y)) - 1;
-  check_lattice_size(i0, i1, j0, j1, "scale");
+  auto [i0, i1, j0, j1] = lattice_range(
+      std::floor((a.min_x - w) / step_x) + 1, std::ceil(a.max_x / step_x) - 1,
+      std::floor((a.min_y - h) / step_y) + 1, std::ceil(a.max_y / step_y) - 1, "scale");
   std::vector<Cell> cells;
   for (long j = j0; j <= j1; ++j) {
     for (long i = i0; i <= i1; ++i) {
@@ -181,11 +197,9 @@ std::vector<Cell> graticule_cells(const IndexSpec& spec, const OGRSpatialReferen
   }
   double dx = spec.cell_width_min / 60.0;
   double dy = spec.cell_height_min / 60.0;
-  long i0 = static_cast<long>(std::floor(g.min_x / dx));
-  long i1 = static_cast<long>(std::ceil(g.max_x / dx)) - 1;
-  long j0 = static_cast<long>(std::floor(g.min_y / dy));
-  long j1 = static_cast<long>(std::ceil(g.max_y / dy)) - 1;
-  check_lattice_size(i0, i1, j0, j1, "size");
+  auto [i0, i1, j0, j1] =
+      lattice_range(std::floor(g.min_x / dx), std::ceil(g.max_x / dx) - 1, std::floor(g.min_y / dy),
+                    std::ceil(g.max_y / dy) - 1, "size");
   std::vector<Cell> cells;
   for (long j = j0; j <= j1; ++j) {
     for (long i = i0; i <= i1; ++i) {

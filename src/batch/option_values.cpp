@@ -4,6 +4,7 @@
 #include <cmath>
 #include <optional>
 
+#include "sheetmill/config/bounds.hpp"
 #include "sheetmill/core/error.hpp"
 #include "sheetmill/core/scale_text.hpp"
 #include "sheetmill/core/units.hpp"
@@ -43,10 +44,18 @@ double parse_paper_length_mm(const std::string& raw, const std::string& where) {
   auto v = number_and_unit(strip(raw));
   if (v) {
     const std::string& u = v->second;
-    if (u == "mm" || (u.empty() && v->first == 0)) return v->first;
-    if (u == "cm") return v->first * 10;
-    if (u == "in") return v->first * kMmPerInch;
-    if (u == "pt") return v->first * kMmPerPt;
+    double mm = u == "mm" || (u.empty() && v->first == 0) ? v->first
+                : u == "cm"                               ? v->first * 10
+                : u == "in"                               ? v->first * kMmPerInch
+                : u == "pt"                               ? v->first * kMmPerPt
+                                                          : std::nan("");
+    if (std::abs(mm) <= config::bounds::max_paper_length_mm) return mm;
+    if (!std::isnan(mm)) {
+      throw_input_error(where,
+                        "expected a length on paper of at most 5080mm (200 in, the "
+                        "largest PDF page), got \"" +
+                            raw + "\"");
+    }
   }
   throw_input_error(where, "expected a length on paper such as 5mm, got \"" + raw + "\"");
 }
@@ -55,10 +64,15 @@ double parse_ground_length_m(const std::string& raw, const std::string& where) {
   auto v = number_and_unit(strip(raw));
   if (v) {
     const std::string& u = v->second;
-    if (u == "m") return v->first;
-    if (u == "km") return v->first * 1000;
-    if (u == "ft") return v->first * kMetresPerFoot;
-    if (u == "mi") return v->first * 1609.344;  // international mile
+    double m = u == "m"    ? v->first
+               : u == "km" ? v->first * 1000
+               : u == "ft" ? v->first * kMetresPerFoot
+               : u == "mi" ? v->first * 1609.344  // international mile
+                           : std::nan("");
+    if (std::abs(m) <= config::bounds::max_ground_length_m) return m;
+    if (!std::isnan(m)) {
+      throw_input_error(where, "expected a ground length of at most 100000km, got \"" + raw + "\"");
+    }
   }
   throw_input_error(where, "expected a ground length such as 1km or 500m, got \"" + raw + "\"");
 }
@@ -108,6 +122,12 @@ Box parse_box(const std::string& raw, const std::string& where) {
   }
   if (v.size() != 4 || !(v[0] < v[2]) || !(v[1] < v[3])) {
     throw_input_error(where, "expected minx,miny,maxx,maxy with min < max, got \"" + raw + "\"");
+  }
+  for (double c : v) {
+    if (std::abs(c) > config::bounds::max_abs_coordinate) {
+      throw_input_error(
+          where, "expected coordinates of at most 1e9 in the CRS's units, got \"" + raw + "\"");
+    }
   }
   return Box::of(v[0], v[1], v[2], v[3]);
 }

@@ -6,6 +6,7 @@
 #include <cstdint>
 
 #include "sheetmill/core/error.hpp"
+#include "sheetmill/core/utf8.hpp"
 
 namespace sheetmill::batch {
 
@@ -19,35 +20,6 @@ constexpr std::size_t kMaxComponentBytes = 200;
 bool unsafe_ascii(unsigned char c) {
   static constexpr std::string_view kUnsafe = "/\\:*?\"<>|";
   return c < 0x20 || c == 0x7f || kUnsafe.find(char(c)) != std::string_view::npos;
-}
-
-// Code points that would hide or reorder text in a listing: C1 controls, the bidirectional
-// embeddings, overrides and isolates, and the line and paragraph separators.
-bool unsafe_code_point(std::uint32_t cp) {
-  return (cp >= 0x80 && cp <= 0x9f) || (cp >= 0x202a && cp <= 0x202e) ||
-         (cp >= 0x2066 && cp <= 0x2069) || cp == 0x2028 || cp == 0x2029 || cp == 0x200e ||
-         cp == 0x200f || cp == 0xfeff;
-}
-
-// Length of the well-formed UTF-8 sequence at s[i] (RFC 3629: no overlongs, no surrogates,
-// nothing above U+10FFFF), or 0 if it is not one.
-std::size_t utf8_sequence(std::string_view s, std::size_t i, std::uint32_t& cp) {
-  auto b = [&](std::size_t k) { return static_cast<unsigned char>(s[i + k]); };
-  unsigned char c = b(0);
-  std::size_t n = c < 0x80           ? 1
-                  : (c >> 5) == 0x6  ? 2
-                  : (c >> 4) == 0xe  ? 3
-                  : (c >> 3) == 0x1e ? 4
-                                     : 0;
-  if (n == 0 || i + n > s.size()) return 0;
-  cp = n == 1 ? c : n == 2 ? (c & 0x1f) : n == 3 ? (c & 0x0f) : (c & 0x07);
-  for (std::size_t k = 1; k < n; ++k) {
-    if ((b(k) & 0xc0) != 0x80) return 0;
-    cp = (cp << 6) | (b(k) & 0x3f);
-  }
-  static constexpr std::uint32_t kMin[5] = {0, 0, 0x80, 0x800, 0x10000};
-  if (cp < kMin[n] || cp > 0x10ffff || (cp >= 0xd800 && cp <= 0xdfff)) return 0;
-  return n;
 }
 
 std::string upper_ascii(std::string_view s) {
@@ -87,7 +59,8 @@ std::string sanitise_component(std::string_view raw) {
       ++i;
       continue;
     }
-    if ((n == 1 && unsafe_ascii(static_cast<unsigned char>(raw[i]))) || unsafe_code_point(cp)) {
+    if ((n == 1 && unsafe_ascii(static_cast<unsigned char>(raw[i]))) ||
+        hides_or_reorders_text(cp)) {
       out.push_back('_');
     } else if (out.size() + n <= kMaxValueBytes) {
       out.append(raw.substr(i, n));
@@ -147,8 +120,8 @@ fs::path expand_output_name(const std::string& file_template, const SheetJob& jo
     }
     std::string c = finish_component(raw);
     if (c.size() > kMaxComponentBytes) {
-      throw_input_error(where, "output file name \"" + c + "\" for sheet \"" +
-                                   sanitise_component(job.id) + "\" is longer than " +
+      throw_input_error(where, "output file name \"" + c + "\" for sheet " +
+                                   quote_untrusted(job.id) + " is longer than " +
                                    std::to_string(kMaxComponentBytes) + " bytes");
     }
     out /= c;
@@ -169,9 +142,9 @@ void check_unique_outputs(const std::vector<SheetJob>& jobs, const std::string& 
     if (keys[i].first == keys[i - 1].first) {
       const SheetJob& a = jobs[keys[i - 1].second];
       const SheetJob& b = jobs[keys[i].second];
-      throw_input_error(where, "sheets \"" + sanitise_component(a.id) + "\" and \"" +
-                                   sanitise_component(b.id) + "\" would both be written to " +
-                                   b.output.filename().string() +
+      // The IDs as the data holds them, escaped: their file names are what looks alike.
+      throw_input_error(where, "sheets " + quote_untrusted(a.id) + " and " + quote_untrusted(b.id) +
+                                   " would both be written to " + b.output.filename().string() +
                                    " (IDs must be unique; change the IDs or the file template)");
     }
   }

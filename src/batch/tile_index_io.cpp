@@ -3,6 +3,7 @@
 #include <ogr_spatialref.h>
 #include <ogrsf_frmts.h>
 
+#include <cmath>
 #include <cstdio>
 #include <memory>
 
@@ -10,6 +11,7 @@
 #include "sheetmill/core/error.hpp"
 #include "sheetmill/core/gdal_env.hpp"
 #include "sheetmill/core/handles.hpp"
+#include "sheetmill/core/utf8.hpp"
 
 namespace sheetmill::batch {
 
@@ -34,6 +36,27 @@ std::unique_ptr<OGRSpatialReference> srs_from(const std::string& crs, const std:
   }
   srs->SetAxisMappingStrategy(OAMS_TRADITIONAL_GIS_ORDER);
   return srs;
+}
+
+// True when every vertex of `g` has finite coordinates: one NaN vertex would otherwise poison
+// the envelope and every neighbour and overlap test of the whole index.
+class FiniteVertices : public OGRDefaultConstGeometryVisitor {
+ public:
+  using OGRDefaultConstGeometryVisitor::visit;
+  void visit(const OGRPoint* p) override {
+    // Not IsEmpty(): OGR counts a point with a NaN coordinate as empty.
+    if (!std::isfinite(p->getX()) || !std::isfinite(p->getY())) finite = false;
+  }
+  bool finite = true;
+};
+
+// A sheet ID names files, stamps and log lines: it must be text. (Control and direction
+// characters are allowed: file names replace them, messages show them escaped.)
+void check_sheet_id(const std::string& id, const std::string& where) {
+  if (auto bad = first_invalid_utf8(id)) {
+    throw_input_error(where, "the sheet ID " + quote_untrusted(id) + " is not valid UTF-8 (byte " +
+                                 std::to_string(*bad + 1) + "); fix the ID in the tile index");
+  }
 }
 
 }  // namespace
@@ -175,6 +198,7 @@ TileIndexContent read_tile_index(const std::string& path, const std::string& lay
     std::string where = path + ": feature " + std::to_string(f->GetFID());
     if (!f->IsFieldSetAndNotNull(id_index)) throw_input_error(where, "has no sheet ID");
     job.id = f->GetFieldAsString(id_index);
+    check_sheet_id(job.id, where);
     if (name_index >= 0 && f->IsFieldSetAndNotNull(name_index)) {
       job.name = f->GetFieldAsString(name_index);
     }
@@ -184,6 +208,13 @@ TileIndexContent read_tile_index(const std::string& path, const std::string& lay
     }
     OGRGeometry* g = f->GetGeometryRef();
     if (!g || g->IsEmpty()) throw_input_error(where, "has no footprint polygon");
+    FiniteVertices vertices;
+    g->accept(&vertices);
+    if (!vertices.finite) {
+      throw_input_error(where, "sheet " + quote_untrusted(job.id) +
+                                   ": the footprint has a vertex that is not a finite number "
+                                   "(NaN or infinite); fix or remove that feature");
+    }
     OGREnvelope env;
     g->getEnvelope(&env);
     job.footprint = Box::of(env.MinX, env.MinY, env.MaxX, env.MaxY);

@@ -4,7 +4,9 @@
 #include <charconv>
 #include <cmath>
 #include <fstream>
-#include <sstream>
+
+#include "config/yaml_limits.hpp"
+#include "sheetmill/config/bounds.hpp"
 
 #include "sheetmill/core/scale_text.hpp"
 
@@ -179,24 +181,48 @@ double ConfigNode::as_length_mm() const {
   double v = 0;
   std::string unit;
   if (node_.IsScalar() && split_unit(node_.Scalar(), v, unit)) {
-    if (unit == "mm") return v;
-    if (unit == "cm") return v * 10;
-    if (unit == "in") return v * 25.4;
-    if (unit == "pt") return v * 25.4 / 72.0;
+    double mm = unit == "mm"   ? v
+                : unit == "cm" ? v * 10
+                : unit == "in" ? v * 25.4
+                : unit == "pt" ? v * 25.4 / 72.0
+                               : std::nan("");
+    if (std::abs(mm) <= bounds::max_paper_length_mm) return mm;
+    if (!std::isnan(mm)) {
+      fail_expected("a length of at most 5080mm (200 in, the largest PDF page)");
+    }
   }
   fail_expected("a length such as 0.35mm (units: mm, cm, in, pt)");
+}
+
+double ConfigNode::as_spacing_mm() const {
+  double mm = as_length_mm();
+  if (!(mm >= bounds::min_repeat_spacing_mm)) {
+    fail_expected("a spacing of at least 0.1mm (finer repeats do not print)");
+  }
+  return mm;
 }
 
 double ConfigNode::as_ground_length_m() const {
   double v = 0;
   std::string unit;
   if (node_.IsScalar() && split_unit(node_.Scalar(), v, unit)) {
-    if (unit == "m") return v;
-    if (unit == "km") return v * 1000;
-    if (unit == "ft") return v * 0.3048;
-    if (unit == "mi") return v * 1609.344;
+    double m = unit == "m"    ? v
+               : unit == "km" ? v * 1000
+               : unit == "ft" ? v * 0.3048
+               : unit == "mi" ? v * 1609.344
+                              : std::nan("");
+    if (std::abs(m) <= bounds::max_ground_length_m) return m;
+    if (!std::isnan(m)) fail_expected("a ground distance of at most 100000km");
   }
   fail_expected("a ground distance such as 10m (units: m, km, ft, mi)");
+}
+
+double ConfigNode::as_coordinate() const {
+  double v = as_number();
+  if (std::abs(v) > bounds::max_abs_coordinate) {
+    fail_expected("a coordinate of at most 1e9 in the CRS's units");
+  }
+  return v;
 }
 
 double ConfigNode::as_angle_deg() const {
@@ -224,6 +250,13 @@ std::vector<double> ConfigNode::as_numbers(std::size_t n) const {
   return out;
 }
 
+std::vector<double> ConfigNode::as_coordinates(std::size_t n) const {
+  as_numbers(n);
+  std::vector<double> out;
+  for (const auto& item : items()) out.push_back(item.as_coordinate());
+  return out;
+}
+
 fs::path ConfigNode::as_path() const {
   fs::path p(as_string());
   if (p.is_absolute()) return p;
@@ -239,6 +272,7 @@ std::string ConfigNode::as_data_source() const {
 namespace {
 ConfigNode parse(const std::string& text, const std::string& name) {
   auto file = std::make_shared<const std::string>(name);
+  detail::check_yaml_limits(text, name);
   YAML::Node root;
   try {
     root = YAML::Load(text);
@@ -255,9 +289,12 @@ ConfigNode parse(const std::string& text, const std::string& name) {
 ConfigNode load_file(const fs::path& path) {
   std::ifstream in(path, std::ios::binary);
   if (!in) throw_input_error(path.string(), "file not found or not readable");
-  std::stringstream ss;
-  ss << in.rdbuf();
-  return parse(ss.str(), path.string());
+  // A bounded read: one byte past the limit is enough to refuse a huge file or a device that
+  // never ends (/dev/zero), and nothing more is read.
+  std::string text(detail::max_document_bytes + 1, '\0');
+  in.read(text.data(), static_cast<std::streamsize>(text.size()));
+  text.resize(static_cast<std::size_t>(in.gcount()));
+  return parse(text, path.string());
 }
 
 ConfigNode load_string(const std::string& text, const std::string& name) {

@@ -6,15 +6,35 @@
 
 #include <filesystem>
 #include <mutex>
+#include <set>
 
 #include "sheetmill/core/error.hpp"
 #include "sheetmill/core/log.hpp"
 
 namespace sheetmill {
 
+namespace {
+// GDAL's messages where no GdalErrorScope listens (a driver on another thread, a warning while
+// closing a file): each distinct message once as a log warning, never GDAL's own "ERROR 1:" or
+// "Warning 1:" line on stderr. Debug chatter stays with CPL_DEBUG.
+void CPL_STDCALL route_unscoped(CPLErr level, CPLErrorNum, const char* msg) {
+  if (level != CE_Warning && level != CE_Failure && level != CE_Fatal) return;
+  std::string text = msg ? msg : "";
+  static std::mutex mutex;
+  static std::set<std::string> seen;
+  {
+    std::lock_guard lock(mutex);
+    // Bounded: a driver that reports once per pixel cannot grow this without end.
+    if (seen.size() >= 1000 || !seen.insert(text).second) return;
+  }
+  log::warn("GDAL: {}", text);
+}
+}  // namespace
+
 void gdal_init() {
   static std::once_flag once;
   std::call_once(once, [] {
+    CPLSetErrorHandler(route_unscoped);
     GDALAllRegister();
     // A sheet is one process's work; let GDAL use both cores for warping.
     CPLSetConfigOption("GDAL_NUM_THREADS", CPLGetConfigOption("GDAL_NUM_THREADS", "ALL_CPUS"));

@@ -39,7 +39,7 @@ std::optional<double> parse_scale_denominator(std::string_view text) {
   double v = 0;
   auto [end, ec] = std::from_chars(t.data(), t.data() + t.size(), v);
   if (ec != std::errc() || end != t.data() + t.size()) return std::nullopt;
-  if (!std::isfinite(v) || !(v >= 1)) return std::nullopt;
+  if (!std::isfinite(v) || !(v >= 1) || v > kMaxScaleDenominator) return std::nullopt;
   return v;
 }
 

@@ -1,7 +1,11 @@
 #include "sheetmill/draw/area.hpp"
 
+#include <fmt/format.h>
+
 #include <cmath>
 
+#include "sheetmill/config/bounds.hpp"
+#include "sheetmill/core/error.hpp"
 #include "sheetmill/draw/line.hpp"
 #include "sheetmill/draw/point.hpp"
 
@@ -26,6 +30,16 @@ Box bounds_of(const std::vector<Polyline>& rings) {
   return b;
 }
 
+// Refuses, before any is made, more symbols than one feature may generate.
+void check_symbol_count(double count, const std::string& what, const std::string& remedy) {
+  if (!(count <= static_cast<double>(config::bounds::max_symbols_per_feature))) {
+    throw_input_error(SourceLocation{},
+                      fmt::format("{} would need {:.3g}, more than the {} one feature may generate "
+                                  "on a sheet; {}",
+                                  what, count, config::bounds::max_symbols_per_feature, remedy));
+  }
+}
+
 }  // namespace
 
 std::vector<std::pair<Point, Point>> hatch_segments(const Box& box, const style::Hatch& hatch) {
@@ -46,6 +60,8 @@ std::vector<std::pair<Point, Point>> hatch_segments(const Box& box, const style:
     u0 = std::min(u0, dot(c, u));
     u1 = std::max(u1, dot(c, u));
   }
+  check_symbol_count((n1 - n0) / hatch.spacing_mm, "an area's hatching lines",
+                     "widen the hatching spacing");
   for (long k = static_cast<long>(std::floor(n0 / hatch.spacing_mm));
        k <= static_cast<long>(std::ceil(n1 / hatch.spacing_mm)); ++k) {
     const Point base = n * (k * hatch.spacing_mm);
@@ -57,6 +73,8 @@ std::vector<std::pair<Point, Point>> hatch_segments(const Box& box, const style:
 std::vector<Point> pattern_points(const Box& box, const style::PatternFill& p) {
   std::vector<Point> out;
   if (box.empty() || p.spacing_x_mm <= 0 || p.spacing_y_mm <= 0) return out;
+  check_symbol_count((box.width() / p.spacing_x_mm + 2) * (box.height() / p.spacing_y_mm + 2),
+                     "an area's pattern symbols", "widen the pattern spacing");
   const long j0 = static_cast<long>(std::floor(box.min_y / p.spacing_y_mm));
   const long j1 = static_cast<long>(std::ceil(box.max_y / p.spacing_y_mm));
   for (long j = j0; j <= j1; ++j) {

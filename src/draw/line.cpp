@@ -1,9 +1,13 @@
 #include "sheetmill/draw/line.hpp"
 
+#include <fmt/format.h>
+
 #include <algorithm>
 #include <cmath>
 #include <set>
 
+#include "sheetmill/config/bounds.hpp"
+#include "sheetmill/core/error.hpp"
 #include "sheetmill/draw/point.hpp"
 
 namespace sheetmill::draw {
@@ -179,6 +183,16 @@ void draw_line_pass(cairo_t* cr, const std::vector<Polyline>& lines,
 void draw_line_marks(cairo_t* cr, const Polyline& input, const style::LineMarks& marks) {
   Polyline line = distinct_points(input);
   if (line.size() < 2 || marks.spacing_mm <= 0) return;
+  double length_mm = 0;
+  for (std::size_t i = 0; i + 1 < line.size(); ++i) length_mm += distance(line[i], line[i + 1]);
+  // Refuses, before any is drawn, more marks than one feature may generate.
+  if (!(length_mm / marks.spacing_mm <= config::bounds::max_symbols_per_feature)) {
+    throw_input_error(
+        SourceLocation{},
+        fmt::format("a line's marks would number {:.3g}, more than the {} one "
+                    "feature may generate on a sheet; widen the marks' spacing",
+                    length_mm / marks.spacing_mm, config::bounds::max_symbols_per_feature));
+  }
   cairo_save(cr);
   cairo_new_path(cr);
   bool any_tick = false;

@@ -3,35 +3,21 @@
 #include <utility>
 #include <vector>
 
+#include "features/farthest_point.hpp"
+
 namespace sheetmill::features {
 
 namespace {
 
-double segment_distance(Point p, Point a, Point b) {
-  Point ab = b - a;
-  double len2 = dot(ab, ab);
-  if (len2 == 0) return distance(p, a);
-  double t = std::clamp(dot(p - a, ab) / len2, 0.0, 1.0);
-  return distance(p, a + ab * t);
-}
-
 // Douglas-Peucker over [first, last], marking kept points; iterative so long lines cannot
-// overflow the stack.
-void mark(const Polyline& line, std::size_t first, std::size_t last, double tol,
+// overflow the stack, and each split's farthest vertex comes from the box tree, not a scan.
+void mark(const detail::FarthestPointTree& tree, std::size_t first, std::size_t last, double tol,
           std::vector<char>& keep) {
   std::vector<std::pair<std::size_t, std::size_t>> stack{{first, last}};
   while (!stack.empty()) {
     auto [a, b] = stack.back();
     stack.pop_back();
-    double worst = -1;
-    std::size_t at = a;
-    for (std::size_t i = a + 1; i < b; ++i) {
-      double d = segment_distance(line[i], line[a], line[b]);
-      if (d > worst) {
-        worst = d;
-        at = i;
-      }
-    }
+    auto [at, worst] = tree.between(a, b);
     if (worst > tol) {
       keep[at] = 1;
       stack.push_back({a, at});
@@ -53,7 +39,8 @@ void simplify_polyline(Polyline& line, double tolerance) {
   if (line.size() < 3) return;
   std::vector<char> keep(line.size(), 0);
   keep.front() = keep.back() = 1;
-  mark(line, 0, line.size() - 1, tolerance, keep);
+  detail::FarthestPointTree tree(line);
+  mark(tree, 0, line.size() - 1, tolerance, keep);
   compact(line, keep);
 }
 
@@ -73,8 +60,9 @@ void simplify_ring(Polyline& ring, double tolerance) {
   closed.push_back(ring[0]);
   std::vector<char> keep(closed.size(), 0);
   keep[0] = keep[far] = keep.back() = 1;
-  mark(closed, 0, far, tolerance, keep);
-  mark(closed, far, closed.size() - 1, tolerance, keep);
+  detail::FarthestPointTree tree(closed);
+  mark(tree, 0, far, tolerance, keep);
+  mark(tree, far, closed.size() - 1, tolerance, keep);
   keep.back() = 0;  // the repeated first point
   std::size_t kept = 0;
   for (std::size_t i = 0; i + 1 < closed.size(); ++i) kept += keep[i];

@@ -1,5 +1,9 @@
 #include "sheetmill/project/project.hpp"
 
+#include <fmt/format.h>
+
+#include <algorithm>
+
 #include "sheetmill/config/node.hpp"
 #include "sheetmill/core/error.hpp"
 
@@ -61,12 +65,12 @@ Extent read_extent(const ConfigNode& n) {
   Extent e;
   int given = 0;
   if (auto c = n.find("centre")) {
-    auto v = c->as_numbers(2);
+    auto v = c->as_coordinates(2);
     e.centre = Point{v[0], v[1]};
     ++given;
   }
   if (auto b = n.find("box")) {
-    auto v = b->as_numbers(4);
+    auto v = b->as_coordinates(4);
     if (v[2] <= v[0] || v[3] <= v[1])
       b->fail("expected [min_x, min_y, max_x, max_y] with max > min");
     e.box = Box::of(v[0], v[1], v[2], v[3]);
@@ -166,7 +170,15 @@ Project load_project(const std::filesystem::path& path) {
   p.crs = root.at("crs").as_string();
   p.scale = root.at("scale").as_scale();
   p.paper = read_paper(root.at("paper"));
-  if (auto m = root.find("margin")) p.margin_mm = m->as_length_mm();
+  if (auto m = root.find("margin")) {
+    p.margin_mm = m->as_length_mm();
+    // The map face needs some paper: margins take at most 45% of the shorter side each.
+    double most_mm = 0.45 * std::min(p.paper.width_mm, p.paper.height_mm);
+    if (!(p.margin_mm >= 0 && p.margin_mm <= most_mm)) {
+      m->fail_expected(
+          fmt::format("a margin from 0mm to {:g}mm (45% of the paper's shorter side)", most_mm));
+    }
+  }
   p.extent = read_extent(root.at("extent"));
   p.style = root.at("style").as_path();
   if (auto e = root.find("elevation")) p.elevation = read_elevation(*e);

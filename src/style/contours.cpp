@@ -69,7 +69,7 @@ ContourStyle read_contours(const ConfigNode& n, Reader& r, ContourStyle c) {
   if (auto d = n.find("depression")) {
     d->expect_keys({"line", "tick_every", "tick_length"});
     if (auto l = d->find("line")) c.depression_ticks = r.line(*l);
-    if (auto t = d->find("tick_every")) c.tick_spacing_mm = positive_length(*t);
+    if (auto t = d->find("tick_every")) c.tick_spacing_mm = t->as_spacing_mm();
     if (auto t = d->find("tick_length")) c.tick_length_mm = positive_length(*t);
   }
   if (auto l = n.find("labels")) {

@@ -118,7 +118,7 @@ LabelStyle Reader::label(const ConfigNode& n, LabelStyle l,
   }
   if (auto r = n.find("repeat_every")) {
     l.repeat_mm = r->as_length_mm();
-    if (l.repeat_mm < 0) r->fail_expected("a length of zero or more such as 80mm");
+    if (l.repeat_mm != 0) l.repeat_mm = r->as_spacing_mm();  // 0: once per feature
   }
   if (auto g = n.find("gap")) l.offset_mm = g->as_length_mm();
   if (auto d = n.find("droppable")) l.may_drop = d->as_bool();

@@ -181,7 +181,7 @@ LineSymbol Reader::line_inline(const ConfigNode& n) {
 LineMarks Reader::marks(const ConfigNode& n) {
   n.expect_keys(with_stroke_keys({"every", "first_at", "length", "side", "symbol"}));
   LineMarks m;
-  if (auto e = n.find("every")) m.spacing_mm = positive_length(*e);
+  if (auto e = n.find("every")) m.spacing_mm = e->as_spacing_mm();
   if (auto f = n.find("first_at")) m.start_mm = f->as_length_mm();
   if (auto l = n.find("length")) m.length_mm = positive_length(*l);
   if (auto s = n.find("side")) {
@@ -206,7 +206,7 @@ AreaSymbol Reader::area_inline(const ConfigNode& n) {
     for (const auto& item : list) {
       item.expect_keys(with_stroke_keys({"spacing", "angle"}));
       Hatch hatch;
-      if (auto s = item.find("spacing")) hatch.spacing_mm = positive_length(*s);
+      if (auto s = item.find("spacing")) hatch.spacing_mm = s->as_spacing_mm();
       if (auto g = item.find("angle")) hatch.angle_deg = g->as_angle_deg();
       hatch.stroke = stroke_fields(item, hatch.stroke);
       a.hatches.push_back(hatch);
@@ -220,10 +220,10 @@ AreaSymbol Reader::area_inline(const ConfigNode& n) {
       if (s->is_sequence()) {
         auto xy = s->items();
         if (xy.size() != 2) s->fail_expected("one length or two [across, down] such as [3mm, 2mm]");
-        fill.spacing_x_mm = positive_length(xy[0]);
-        fill.spacing_y_mm = positive_length(xy[1]);
+        fill.spacing_x_mm = xy[0].as_spacing_mm();
+        fill.spacing_y_mm = xy[1].as_spacing_mm();
       } else {
-        fill.spacing_x_mm = fill.spacing_y_mm = positive_length(*s);
+        fill.spacing_x_mm = fill.spacing_y_mm = s->as_spacing_mm();
       }
     }
     if (auto s = p->find("staggered")) fill.staggered = s->as_bool();

@@ -1,11 +1,13 @@
 #include "sheetmill/terrain/dem_source.hpp"
 
 #include <cpl_conv.h>
+#include <fmt/format.h>
 
 #include <algorithm>
 #include <cmath>
 #include <limits>
 
+#include "sheetmill/config/bounds.hpp"
 #include "sheetmill/core/error.hpp"
 #include "sheetmill/core/gdal_env.hpp"
 #include "terrain/dem_georef.hpp"
@@ -27,6 +29,14 @@ DemSource::DemSource(const std::string& path, const DemReadOptions& options)
   if (ds_->GetRasterCount() < 1) throw_input_error(path, "the raster has no bands");
   grid_.width = ds_->GetRasterXSize();
   grid_.height = ds_->GetRasterYSize();
+  if (static_cast<double>(grid_.width) * grid_.height > config::bounds::max_relief_raster_cells) {
+    throw_input_error(
+        path, fmt::format("the DEM is {} x {} cells; a relief raster is written in "
+                          "the DEM's own grid, at most {:g} cells: cut a window "
+                          "(gdal_translate -projwin) or resample it "
+                          "(gdal_translate -outsize) first",
+                          grid_.width, grid_.height, config::bounds::max_relief_raster_cells));
+  }
   if (ds_->GetGeoTransform(grid_.geotransform) != CE_None) {
     throw_input_error(path, "the DEM has no geotransform (it is not georeferenced)");
   }

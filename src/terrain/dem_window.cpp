@@ -1,8 +1,10 @@
 // Reading a sheet's window of a DEM: GDAL's warper, in memory, into exactly the target grid.
 #include <cpl_string.h>
 #include <gdal_alg.h>
+#include <gdal_utils.h>
 #include <gdalwarper.h>
 
+#include <algorithm>
 #include <cmath>
 #include <limits>
 #include <string>
@@ -58,22 +60,27 @@ bool has_georeferencing(GDALDataset& ds) {
   return ds.GetGeoTransform(gt) == CE_None || ds.GetGCPCount() > 0;
 }
 
-// The overview of `ds` to warp from: the coarsest one still at least as fine as the target
-// (as a warp tool does by default), so a sheet cut from a fine DEM reads few cells. -1 = full.
-int overview_level_for(GDALDataset& ds, const RasterGrid& target, const OGRSpatialReference& src,
-                       const OGRSpatialReference& dst) {
-  GDALRasterBand* band = ds.GetRasterBand(1);
-  if (band->GetOverviewCount() == 0) return -1;
+// The target's cell size in the source's units, measured at the target's centre; 0 when it
+// cannot be told (no geotransform, no transformation).
+double target_cell_in_source(GDALDataset& ds, const RasterGrid& target,
+                             const OGRSpatialReference& src, const OGRSpatialReference& dst) {
   double gt[6];
-  if (ds.GetGeoTransform(gt) != CE_None) return -1;
-  // Compare sizes on the ground in the target CRS at the target's centre.
+  if (ds.GetGeoTransform(gt) != CE_None) return 0;
   CoordinateTransformPtr ct(OGRCreateCoordinateTransformation(&dst, &src));
-  if (!ct) return -1;
+  if (!ct) return 0;
   Box b = target.bounds();
   double xs[2] = {b.centre().x, b.centre().x + target.cell_x()};
   double ys[2] = {b.centre().y, b.centre().y};
-  if (!ct->Transform(2, xs, ys)) return -1;
-  double target_in_src = std::hypot(xs[1] - xs[0], ys[1] - ys[0]);
+  if (!ct->Transform(2, xs, ys)) return 0;
+  return std::hypot(xs[1] - xs[0], ys[1] - ys[0]);
+}
+
+// The overview of `ds` to warp from: the coarsest one still at least as fine as the target
+// (as a warp tool does by default), so a sheet cut from a fine DEM reads few cells. -1 = full.
+int overview_level_for(GDALDataset& ds, double target_in_src) {
+  GDALRasterBand* band = ds.GetRasterBand(1);
+  double gt[6];
+  if (band->GetOverviewCount() == 0 || ds.GetGeoTransform(gt) != CE_None) return -1;
   double src_cell = std::abs(gt[1]);
   int best = -1;
   for (int i = 0; i < band->GetOverviewCount(); ++i) {
@@ -83,6 +90,41 @@ int overview_level_for(GDALDataset& ds, const RasterGrid& target, const OGRSpati
     if (ov_cell <= target_in_src * 1.0001) best = i;
   }
   return best;
+}
+
+// The most DEM cells one sheet's window reads at full resolution: 1 GB of Float32.
+constexpr double kMaxFullReadCells = 2.5e8;
+
+// Without a fitting overview, a DEM so much finer than the sheet that its window would exceed
+// kMaxFullReadCells is read through a virtual copy with fewer, larger cells, still no coarser
+// than the target: GDAL then reads a smaller buffer (GDALRasterIO decimating by nearest
+// neighbour) instead of every cell, so the work follows the sheet, not the DEM (a
+// 10^6 x 10^6 cell DEM reads in seconds). Null when a full read stays within the bound.
+DatasetPtr decimated_view(GDALDataset& ds, const RasterGrid& target, double target_in_src,
+                          const std::string& path) {
+  double gt[6];
+  if (!(target_in_src > 0) || ds.GetGeoTransform(gt) != CE_None) return nullptr;
+  double ratio = target_in_src / std::max(std::abs(gt[1]), std::abs(gt[5]));
+  double cells = ratio * ratio * static_cast<double>(target.width) * target.height;
+  double factor = std::floor(ratio);
+  if (!(cells > kMaxFullReadCells) || !(factor >= 2)) return nullptr;
+  int width = std::max(1, static_cast<int>(ds.GetRasterXSize() / factor));
+  int height = std::max(1, static_cast<int>(ds.GetRasterYSize() / factor));
+  CPLStringList args;
+  for (const char* a : {"-of", "VRT", "-r", "nearest", "-outsize"}) args.AddString(a);
+  args.AddString(std::to_string(width).c_str());
+  args.AddString(std::to_string(height).c_str());
+  GDALTranslateOptions* opts = GDALTranslateOptionsNew(args.List(), nullptr);
+  GdalErrorScope errors;
+  DatasetPtr view(GDALDataset::FromHandle(GDALTranslate("", &ds, opts, nullptr)));
+  GDALTranslateOptionsFree(opts);
+  if (view) {
+    log::info(
+        "{}: no overview as coarse as the sheet; reading every {:g}th cell ({} x {}); "
+        "overviews (gdaladdo) give a smoother relief",
+        path, factor, width, height);
+  }
+  return view;
 }
 
 }  // namespace
@@ -128,10 +170,11 @@ Dem read_dem_window(const std::string& path, const RasterGrid& target,
   dst->SetSpatialRef(&dst_srs);
   dst->GetRasterBand(1)->SetNoDataValue(std::numeric_limits<double>::quiet_NaN());
 
-  // Read from an overview when the target is much coarser than the DEM.
+  // Read from an overview, or a decimated view, when the target is much coarser than the DEM.
   DatasetPtr overview;
   GDALDataset* warp_src = src.get();
-  int ovr = overview_level_for(*src, target, src_srs, dst_srs);
+  const double target_in_src = target_cell_in_source(*src, target, src_srs, dst_srs);
+  int ovr = overview_level_for(*src, target_in_src);
   if (ovr >= 0) {
     // The core's generic OVERVIEW_LEVEL open option presents one overview as a dataset.
     std::string level = "OVERVIEW_LEVEL=" + std::to_string(ovr);
@@ -139,6 +182,10 @@ Dem read_dem_window(const std::string& path, const RasterGrid& target,
     GdalErrorScope quiet;
     overview.reset(
         GDALDataset::Open(path.c_str(), GDAL_OF_RASTER | GDAL_OF_READONLY, nullptr, open_opts));
+    if (overview) warp_src = overview.get();
+  }
+  if (!overview) {
+    overview = decimated_view(*src, target, target_in_src, path);
     if (overview) warp_src = overview.get();
   }
 

@@ -183,3 +183,62 @@ TEST_CASE("relief strips join into the whole window without seams", "[terrain]")
   ReliefImage big = render_relief_window(path.string(), bigger, {}, params);
   CHECK(std::equal(whole.argb.begin(), whole.argb.begin() + 70, big.argb.begin() + 70));
 }
+
+TEST_CASE("a DEM a million cells on a side is read at the sheet's resolution, not in full",
+          "[terrain][bounds]") {
+  // A VRT of 10^6 x 10^6 cells (4 mm x 3 mm) over the 4 x 3 km plane: read in full it is 10^12
+  // cells (4 TB of Float32). The sheet's 200 x 150 window at 20 m needs a 5000th of each axis.
+  sheetmill::test::TempDir tmp("dem-huge");
+  auto plane = plane_tif(tmp);
+  auto vrt = tmp / "huge.vrt";
+  sheetmill::test::write_text(
+      vrt,
+      "<VRTDataset rasterXSize=\"1000000\" rasterYSize=\"1000000\">\n"
+      "  <SRS>EPSG:32633</SRS>\n"
+      "  <GeoTransform>440000, 0.004, 0, 6650000, 0, -0.003</GeoTransform>\n"
+      "  <VRTRasterBand dataType=\"Float32\" band=\"1\">\n"
+      "    <SimpleSource>\n"
+      "      <SourceFilename relativeToVRT=\"1\">plane.tif</SourceFilename>\n"
+      "      <SourceBand>1</SourceBand>\n"
+      "      <SrcRect xOff=\"0\" yOff=\"0\" xSize=\"200\" ySize=\"150\"/>\n"
+      "      <DstRect xOff=\"0\" yOff=\"0\" xSize=\"1000000\" ySize=\"1000000\"/>\n"
+      "    </SimpleSource>\n"
+      "  </VRTRasterBand>\n"
+      "</VRTDataset>\n");
+  auto target = fixture::make_grid(200, 150, 440000, 6650000, 20.0, fixture::wkt_of(32633));
+  Dem dem = read_dem_window(vrt.string(), target);
+  REQUIRE(dem.valid_count() == 200u * 150u);
+  // Nearest-neighbour decimation: each value is the plane within one 20 m source cell of the
+  // target centre, so within 20 m x (0.02 + 0.035) m/m of the analytic plane.
+  double worst = 0;
+  for (int r = 0; r < 150; ++r) {
+    for (int c = 0; c < 200; ++c) {
+      double e = 440000 + (c + 0.5) * 20, n = 6650000 - (r + 0.5) * 20;
+      worst = std::max(worst, std::abs(dem.at(c, r) - tilted(e, n)));
+    }
+  }
+  CHECK(worst < 20 * (0.02 + 0.035));
+}
+
+TEST_CASE("the relief raster commands refuse a DEM beyond their bound before writing",
+          "[terrain][bounds]") {
+  // shade writes the DEM's own grid: 10^12 cells would be a terabyte; refused at once.
+  sheetmill::test::TempDir tmp("dem-huge-shade");
+  auto plane = plane_tif(tmp);
+  auto vrt = tmp / "huge.vrt";
+  sheetmill::test::write_text(
+      vrt, "<VRTDataset rasterXSize=\"1000000\" rasterYSize=\"1000000\">\n"
+           "  <SRS>EPSG:32633</SRS>\n"
+           "  <GeoTransform>440000, 0.004, 0, 6650000, 0, -0.003</GeoTransform>\n"
+           "  <VRTRasterBand dataType=\"Float32\" band=\"1\"/>\n"
+           "</VRTDataset>\n");
+  try {
+    DemSource source(vrt.string());
+    FAIL("expected the DEM to be refused");
+  } catch (const Error& e) {
+    CHECK(e.exit_code() == 2);
+    CHECK(std::string(e.what()).find("huge.vrt: the DEM is 1000000 x 1000000 cells; a relief "
+                                     "raster is written in the DEM's own grid, at most 1e+10 "
+                                     "cells") != std::string::npos);
+  }
+}

@@ -58,10 +58,18 @@ class ConfigNode {
 
   // A length with its unit: mm, cm, m (paper metres, rarely), in, pt. Returns millimetres.
   // A bare number is an error: "expected a length such as 0.35mm, got "0.35"".
+  // Bounded by bounds::max_paper_length_mm either way.
   double as_length_mm() const;
+  // The repeat of marks, hatching or pattern symbols: a length of at least
+  // bounds::min_repeat_spacing_mm.
+  double as_spacing_mm() const;
+  // A number within bounds::max_abs_coordinate of zero, and a list of exactly n of them.
+  double as_coordinate() const;
+  std::vector<double> as_coordinates(std::size_t n) const;
   // An angle in degrees; a bare number or a "deg" suffix.
   double as_angle_deg() const;
-  // A ground distance with its unit: m, km, ft, mi. Returns metres.
+  // A ground distance with its unit: m, km, ft, mi. Returns metres, bounded by
+  // bounds::max_ground_length_m.
   double as_ground_length_m() const;
   // A map scale: "1:25000", "1:25 000" or 25000 (core/scale_text.hpp). Returns N of 1:N.
   double as_scale() const;

@@ -1,7 +1,8 @@
 #pragma once
 // GDAL and PROJ set-up, and the routing of their messages.
 //
-// gdal_init() registers drivers once (thread-safe, idempotent). GdalErrorScope installs a
+// gdal_init() registers drivers once (thread-safe, idempotent) and routes every GDAL message
+// outside a GdalErrorScope to the log, once per distinct message. GdalErrorScope installs a
 // thread-local CPLError handler for its lifetime: CE_Failure and CE_Fatal messages are kept so
 // the caller can turn them into one Error naming the file; CE_Warning becomes a log warning.
 

@@ -8,12 +8,16 @@
 
 namespace sheetmill {
 
-// The denominator N of 1:N, or nullopt when `text` is not one of the forms above or N < 1 or
-// N is not finite. Never throws.
+// The largest denominator read: 1:100 000 000 (a world map on a page). Larger is a typo, and
+// would make the frame's ground extent overflow the work any sheet can do.
+inline constexpr double kMaxScaleDenominator = 1e8;
+
+// The denominator N of 1:N, or nullopt when `text` is not one of the forms above or N is not
+// from 1 to kMaxScaleDenominator. Never throws.
 std::optional<double> parse_scale_denominator(std::string_view text);
 
 // What every scale message says is expected.
 inline constexpr const char* kScaleExpected =
-    "a scale as a representative fraction such as 1:25000 (or 1:25 000, or 25000)";
+    "a scale from 1:1 to 1:100 000 000 such as 1:25000, 1:25 000 or 25000";
 
 }  // namespace sheetmill
