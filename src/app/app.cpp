@@ -27,6 +27,7 @@ int run(int argc, const char* const* argv) {
   add_batch_command(cli, action, global);
   add_exhibit_command(cli, action, global);
   add_demo_area_command(cli, action, global);
+  add_accuracy_command(cli, action, global);
 
   try {
     cli.parse(argc, argv);
