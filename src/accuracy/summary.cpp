@@ -15,6 +15,11 @@ std::string format_metres(double m) {
 
 namespace {
 
+// Contour intervals as people write them: 10, 2.5, 0.08 (to the millimetre).
+std::string interval_text(double m) {
+  return fmt::format("{:g}", std::round(m * 1000) / 1000);
+}
+
 std::string signed_metres(double m) {
   return (m >= 0 ? "+" : "") + format_metres(m);
 }
@@ -64,7 +69,7 @@ std::string summary_text(const Assessment& a) {
   out += fmt::format(
       "NMAS 1947 interval    {} m or more (90 % of points within half an interval); "
       "finest usual interval {} m\n",
-      format_metres(ci), format_metres(usual_interval_at_least(ci)));
+      interval_text(ci), interval_text(usual_interval_at_least(ci)));
   out += "outliers beyond 3 SD  ";
   if (a.outlier_ids.empty()) out += "none";
   for (std::size_t i = 0; i < a.outlier_ids.size(); ++i) {
@@ -112,9 +117,9 @@ std::optional<std::string> interval_warning(const Assessment& a, double interval
   return fmt::format(
       "WARNING: the {} m contour interval is finer than the {} m the DEM supports by the 1947 "
       "National Map Accuracy Standards (more than 10 % of the {} check points are in error by "
-      "more than half of {} m); read the contours as approximate.",
-      format_metres(interval_m), format_metres(a.all.nmas_interval_m), a.used,
-      format_metres(interval_m));
+      "more than {} m, half the interval); read the contours as approximate.",
+      interval_text(interval_m), interval_text(a.all.nmas_interval_m), a.used,
+      interval_text(interval_m / 2));
 }
 
 }  // namespace sheetmill::accuracy
