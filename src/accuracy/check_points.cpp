@@ -2,6 +2,8 @@
 
 #include <fmt/format.h>
 
+#include <string_view>
+
 #include "sheetmill/core/error.hpp"
 #include "sheetmill/core/gdal_env.hpp"
 #include "sheetmill/core/handles.hpp"
@@ -53,9 +55,17 @@ std::string field_names(OGRFeatureDefn& defn) {
   return out.empty() ? "none" : out;
 }
 
+// GeoPackage stores a layer without CRS under its "Undefined geographic SRS" or "Undefined
+// Cartesian SRS" (srs_id 0 and -1 of the GeoPackage standard): that states nothing.
+bool states_crs(const OGRSpatialReference* srs) {
+  if (!srs || srs->IsEmpty()) return false;
+  const char* name = srs->GetName();
+  return !(name && std::string_view(name).starts_with("Undefined "));
+}
+
 OGRSpatialReference points_crs(OGRLayer& layer, const CheckPointSource& src) {
   OGRSpatialReference srs;
-  if (const OGRSpatialReference* own = layer.GetSpatialRef()) {
+  if (const OGRSpatialReference* own = layer.GetSpatialRef(); states_crs(own)) {
     srs = *own;
   } else if (src.crs) {
     if (srs.SetFromUserInput(src.crs->c_str()) != OGRERR_NONE) {
