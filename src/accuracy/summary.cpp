@@ -15,9 +15,9 @@ std::string format_metres(double m) {
 
 namespace {
 
-// Contour intervals as people write them: 10, 2.5, 0.08 (to the millimetre).
+// Contour intervals as people write them, to three significant digits: 10, 2.5, 0.08, 24.1.
 std::string interval_text(double m) {
-  return fmt::format("{:g}", std::round(m * 1000) / 1000);
+  return fmt::format("{:.3g}", m);
 }
 
 std::string signed_metres(double m) {
