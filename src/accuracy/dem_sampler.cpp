@@ -5,6 +5,19 @@
 
 namespace sheetmill::accuracy {
 
+namespace {
+
+// Linear between a and b. A term of weight zero is left out, so a nodata (NaN) cell that is not
+// needed (a point on a cell centre's row or column, or the grid's last one) cannot turn the
+// sample into NaN (NaN x 0 is NaN); a nodata cell with a nonzero weight does, as it should.
+double lerp(double a, double b, double t) {
+  if (t == 0) return a;
+  if (t == 1) return b;
+  return a * (1 - t) + b * t;
+}
+
+}  // namespace
+
 DemSampler::DemSampler(const std::string& path, const terrain::DemReadOptions& options)
     : source_(path, options) {}
 
@@ -27,16 +40,9 @@ std::optional<double> DemSampler::at(Point xy) const {
     rows_from_ = r0;
   }
   auto z = [&](int c, int r) { return static_cast<double>(rows_.at(c, r - r0)); };
-  double top = z(c0, r0) * (1 - u) + z(c1, r0) * u;
-  double bottom = z(c0, r1) * (1 - u) + z(c1, r1) * u;
-  // A weight of zero must not let a nodata neighbour through as NaN * 0; nor hide one with a
-  // nonzero weight: NaN propagates through the sums when its weight is not zero.
-  if (u == 0) {
-    top = z(c0, r0);
-    bottom = z(c0, r1);
-  }
-  if (v == 0) return top;
-  return top * (1 - v) + bottom * v;
+  double top = lerp(z(c0, r0), z(c1, r0), u);
+  double bottom = v == 0 ? 0 : lerp(z(c0, r1), z(c1, r1), u);
+  return lerp(top, bottom, v);
 }
 
 }  // namespace sheetmill::accuracy

@@ -1,5 +1,7 @@
 #include "sheetmill/accuracy/run.hpp"
 
+#include <filesystem>
+
 #include "sheetmill/accuracy/report_page.hpp"
 #include "sheetmill/accuracy/residuals_io.hpp"
 #include "sheetmill/accuracy/summary.hpp"

@@ -1,5 +1,7 @@
 #include "render/accuracy_notes.hpp"
 
+#include <fmt/format.h>
+
 #include "sheetmill/accuracy/assess.hpp"
 #include "sheetmill/accuracy/summary.hpp"
 #include "sheetmill/core/log.hpp"
@@ -26,6 +28,12 @@ std::vector<std::string> accuracy_notes(const project::Project& project, double 
   options.date = check.date.value_or(project.revision_date);
   accuracy::Assessment a = accuracy::assess_vertical(project.elevation.dem, src, options);
   std::vector<std::string> notes{"Vertical accuracy: " + accuracy::vertical_statement(a, a.date)};
+  if (a.has_cover && a.vegetated.count > 0) {
+    notes.back() += fmt::format(
+        " Vegetated ground: {} m at the 95th percentile (ASPRS 2014; {} "
+        "points).",
+        accuracy::format_metres(a.vegetated.abs_p95_m), a.vegetated.count);
+  }
   if (a.all.max_abs_m == 0) {
     notes.back() += " Every check point equals the DEM exactly, so they do not test it.";
   }
