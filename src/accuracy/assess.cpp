@@ -94,8 +94,18 @@ Assessment assess_vertical(const std::string& dem_path, const CheckPointSource& 
   a.points_layer = set.layer_name;
   a.height_field = set.height_field;
 
+  // Sampled north to south, so points on the same rows share one read of them.
+  std::vector<std::size_t> order(set.points.size());
+  for (std::size_t i = 0; i < order.size(); ++i) order[i] = i;
+  std::stable_sort(order.begin(), order.end(), [&](std::size_t i, std::size_t j) {
+    return set.points[i].xy.y > set.points[j].xy.y;
+  });
+  std::vector<std::optional<double>> sampled(set.points.size());
+  for (std::size_t i : order) sampled[i] = dem.at(set.points[i].xy);
+
   DuplicateFilter dups;
-  for (const CheckPoint& p : set.points) {
+  for (std::size_t i = 0; i < set.points.size(); ++i) {
+    const CheckPoint& p = set.points[i];
     Residual r;
     r.id = p.id;
     r.xy = p.xy;
@@ -108,7 +118,7 @@ Assessment assess_vertical(const std::string& dem_path, const CheckPointSource& 
       continue;
     }
     r.z_check_m = *p.z_m;
-    std::optional<double> z = dem.at(p.xy);
+    const std::optional<double>& z = sampled[i];
     if (!z) {
       r.status = PointStatus::outside;
       ++a.outside;
