@@ -29,6 +29,7 @@ void add_commands(CLI::App& cli, Action& action, GlobalOptions& global) {
   add_batch_command(cli, action, global);
   add_exhibit_command(cli, action, global);
   add_demo_area_command(cli, action, global);
+  add_accuracy_command(cli, action, global);
 }
 
 constexpr const char* kDescription =

@@ -25,5 +25,6 @@ void add_index_command(CLI::App& app, Action& action, const GlobalOptions& globa
 void add_batch_command(CLI::App& app, Action& action, const GlobalOptions& global);
 void add_exhibit_command(CLI::App& app, Action& action, const GlobalOptions& global);
 void add_demo_area_command(CLI::App& app, Action& action, const GlobalOptions& global);
+void add_accuracy_command(CLI::App& app, Action& action, const GlobalOptions& global);
 
 }  // namespace sheetmill::app

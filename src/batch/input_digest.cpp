@@ -28,6 +28,10 @@ DigestInputs digest_inputs_for(const project::Project& p, const style::Style& st
   in.files.push_back(p.file);
   if (!p.style.empty()) in.files.push_back(p.style);
   if (p.magnetic.model_file) in.files.emplace_back(*p.magnetic.model_file);
+  // The accuracy statement in the notes comes from every check point, on the sheet or not.
+  if (p.accuracy && fs::is_regular_file(p.accuracy->points)) {
+    in.files.emplace_back(p.accuracy->points);
+  }
   std::set<std::string> seen;
   for (const style::Layer& layer : style.layers) {
     bool shown = (layer.min_scale <= 0 || p.scale >= layer.min_scale) &&

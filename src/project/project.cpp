@@ -129,6 +129,25 @@ Magnetic read_magnetic(const ConfigNode& n) {
   return m;
 }
 
+AccuracyCheck read_accuracy(const ConfigNode& n) {
+  n.expect_keys({"points", "layer", "height_field", "id_field", "crs", "height_unit", "cover_field",
+                 "vegetated", "date"});
+  AccuracyCheck a;
+  a.points = n.at("points").as_data_source();
+  a.layer = n.get_or<std::string>("layer", "");
+  a.height_field = n.get_or<std::string>("height_field", "");
+  a.id_field = n.get_or<std::string>("id_field", "");
+  if (auto c = n.find("crs")) a.crs = c->as_string();
+  if (auto u = n.find("height_unit")) a.height_unit = u->as_choice({"m", "ft", "us-ft"});
+  a.cover_field = n.get_or<std::string>("cover_field", "");
+  if (auto v = n.find("vegetated")) {
+    for (const auto& item : v->items()) a.vegetated.push_back(item.as_string());
+    if (a.cover_field.empty()) v->fail("vegetated classes need a cover_field");
+  }
+  if (auto d = n.find("date")) a.date = d->as_string();
+  return a;
+}
+
 Output read_output(const ConfigNode& n) {
   n.expect_keys({"relief_dpi", "relief_compression", "jpeg_quality", "file_names"});
   Output o;
@@ -156,9 +175,10 @@ std::vector<std::string> read_strings(const ConfigNode& n) {
 
 Project load_project(const std::filesystem::path& path) {
   ConfigNode root = config::load_file(path);
-  root.expect_keys({"title", "subtitle", "producer", "revision", "credits", "notes", "crs", "scale",
-                    "paper", "margin", "extent", "style", "elevation", "contours", "sources",
-                    "vector_data", "tile_index", "magnetic", "output"});
+  root.expect_keys({"title",       "subtitle",   "producer",  "revision", "credits",
+                    "notes",       "crs",        "scale",     "paper",    "margin",
+                    "extent",      "style",      "elevation", "contours", "sources",
+                    "vector_data", "tile_index", "magnetic",  "accuracy", "output"});
   Project p;
   p.file = path;
   p.title = root.at("title").as_string();
@@ -189,7 +209,11 @@ Project load_project(const std::filesystem::path& path) {
   if (auto v = root.find("vector_data")) p.vector_data = v->as_data_source();
   if (auto t = root.find("tile_index")) p.tile_index = read_tile_index(*t);
   if (auto m = root.find("magnetic")) p.magnetic = read_magnetic(*m);
+  if (auto a = root.find("accuracy")) p.accuracy = read_accuracy(*a);
   if (auto o = root.find("output")) p.output = read_output(*o);
+  if (p.accuracy && p.elevation.dem.empty()) {
+    root.at("accuracy").fail("check points test a DEM; give elevation.dem");
+  }
   if (p.extent.sheet_id && !p.tile_index) {
     root.at("extent").fail("extent.sheet needs a tile_index");
   }

@@ -1,6 +1,7 @@
 #include <chrono>
 #include <optional>
 
+#include "render/accuracy_notes.hpp"
 #include "render/contour_layer.hpp"
 #include "render/relief_layer.hpp"
 #include "sheetmill/contours/draw_contours.hpp"
@@ -134,6 +135,7 @@ RenderReport render_sheet(const project::Project& project, const style::Style& s
   info.height_unit_m = sheet_contours.unit.metres;
   info.height_unit_symbol = sheet_contours.unit.symbol;
   info.height_unit_name = sheet_contours.unit.name;
+  info.accuracy_notes = accuracy_notes(project, sheet_contours.interval_m);
   sheet::draw_neatline_and_grid(canvas.begin_group("grid"), layout, style, fonts);
   canvas.end_group();
   sheet::draw_collar(canvas.begin_group("collar"), layout, project, style, info,

@@ -49,6 +49,7 @@ void draw_notes(cairo_t* cr, const Box& box, const project::Project& project,
                     info.height_unit_symbol, info.height_unit_name,
                     info.vertical_datum.empty() ? "" : " above " + info.vertical_datum));
   }
+  notes.insert(notes.end(), info.accuracy_notes.begin(), info.accuracy_notes.end());
   std::string code = info.epsg ? fmt::format(" (EPSG:{})", info.epsg) : "";
   notes.push_back(fmt::format("Horizontal reference: {}{}; datum {}; {} projection.", info.crs_name,
                               code, info.datum_name, info.projection_name));

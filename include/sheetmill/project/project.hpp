@@ -63,6 +63,20 @@ struct Magnetic {
   std::optional<std::string> date;  // YYYY-MM-DD or decimal year; default: today
 };
 
+// Check points that test the DEM (docs/accuracy.md): the sheet's notes print the NSSDA
+// statement and warn when the contour interval is finer than the points support.
+struct AccuracyCheck {
+  std::string points;                  // point source (resolved path or connection string)
+  std::string layer;                   // empty: the first point layer
+  std::string height_field;            // empty: the usual names
+  std::string id_field;                // empty: "id"
+  std::optional<std::string> crs;      // when the points state none
+  std::string height_unit = "m";       // "m", "ft", "us-ft"
+  std::string cover_field;             // land-cover class field; empty: none
+  std::vector<std::string> vegetated;  // classes counted as vegetated ground
+  std::optional<std::string> date;     // of the test; default: revision, else today
+};
+
 struct Output {
   double relief_dpi = 300;
   std::string relief_compression = "lossless";  // "lossless" or "jpeg"
@@ -91,6 +105,7 @@ struct Project {
                                           // `sources` is its layer of the same name
   std::optional<TileIndex> tile_index;
   Magnetic magnetic;
+  std::optional<AccuracyCheck> accuracy;
   Output output;
 };
 

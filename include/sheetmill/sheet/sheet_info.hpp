@@ -53,6 +53,8 @@ struct SheetInfo {
   std::string height_unit_symbol = "m";
   std::string height_unit_name = "metres";
   std::string vertical_datum;
+  // The DEM's tested accuracy and any warning about the contour interval (render fills them).
+  std::vector<std::string> accuracy_notes;
   std::string crs_name;
   std::string datum_name;
   std::string projection_name;
