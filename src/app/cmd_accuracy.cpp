@@ -4,6 +4,7 @@
 #include <memory>
 
 #include "app/commands.hpp"
+#include "app/option_checks.hpp"
 #include "sheetmill/accuracy/check_points.hpp"
 #include "sheetmill/accuracy/run.hpp"
 
@@ -38,9 +39,12 @@ void add_accuracy_command(CLI::App& app, Action& action, const GlobalOptions& gl
       app.add_subcommand("accuracy",
                          "Test a DEM against surveyed check points: RMSE, NSSDA 95 % accuracy, the "
                          "finest contour interval it supports");
-  cmd->add_option("DEM", r.dem, "Elevation raster (any GDAL raster, any CRS)")->required();
+  cmd->add_option("DEM", r.dem, "Elevation raster (any GDAL raster, any CRS)")
+      ->required()
+      ->type_name("FILE");
   cmd->add_option("POINTS", r.points.path, "Check points with surveyed heights (any OGR source)")
-      ->required();
+      ->required()
+      ->type_name("FILE");
   cmd->add_option("--layer", r.points.layer, "Layer of POINTS (default: the first point layer)");
   cmd->add_option("--height-field", r.points.height_field,
                   "Field of surveyed heights (default: elevation_m, elevation, height_m, height "
@@ -48,11 +52,13 @@ void add_accuracy_command(CLI::App& app, Action& action, const GlobalOptions& gl
   cmd->add_option("--id-field", r.points.id_field, "Field naming each point (default: id)");
   cmd->add_option("--points-crs", in->points_crs, "The points' CRS when the file states none");
   cmd->add_option("--height-unit", in->height_unit, "Unit of the surveyed heights: m, ft, us-ft")
-      ->check(CLI::IsMember({"m", "ft", "us-ft"}))
+      ->check(one_of({"m", "ft", "us-ft"}))
+      ->type_name("UNIT")
       ->capture_default_str();
   cmd->add_option("--dem-crs", in->dem_crs, "The DEM's CRS when the file states none");
   cmd->add_option("--z-unit", in->z_unit, "The DEM's height unit when the file does not say")
-      ->check(CLI::IsMember({"m", "ft", "us-ft"}));
+      ->check(one_of({"m", "ft", "us-ft"}))
+      ->type_name("UNIT");
   cmd->add_option("--cover-field", r.points.cover_field,
                   "Field of land-cover classes (splits vegetated and non-vegetated ground)");
   cmd->add_option("--vegetated", in->vegetated,
