@@ -6,6 +6,7 @@
 #include "app/commands.hpp"
 #include "sheetmill/core/error.hpp"
 #include "sheetmill/core/log.hpp"
+#include "sheetmill/core/temp_registry.hpp"
 
 namespace sheetmill::app {
 
@@ -39,6 +40,8 @@ int run(int argc, const char* const* argv) {
   log::set_level(global.quiet     ? log::Level::error
                  : global.verbose ? log::Level::debug
                                   : log::Level::info);
+  // An interrupted render or batch removes its temporaries (core/temp_registry.hpp).
+  install_temp_cleanup_on_signals();
   try {
     return action ? action() : 0;
   } catch (const Error& e) {

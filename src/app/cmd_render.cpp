@@ -1,6 +1,7 @@
 #include <filesystem>
 
 #include "app/commands.hpp"
+#include "sheetmill/core/atomic_file.hpp"
 #include "sheetmill/core/log.hpp"
 #include "sheetmill/project/project.hpp"
 #include "sheetmill/render/render.hpp"
@@ -14,6 +15,7 @@ struct RenderArgs {
   std::string output;
   std::string sheet;
   double dpi = 150;
+  bool write_through_link = false;
 };
 
 render::OutputFormat format_for(const std::filesystem::path& out) {
@@ -34,13 +36,19 @@ void add_render_command(CLI::App& app, Action& action, const GlobalOptions&) {
                   "Render this tile-index sheet instead of the project's extent");
   cmd->add_option("--dpi", args->dpi, "Resolution of PNG/GeoTIFF output")
       ->check(CLI::Range(20.0, 1200.0));
+  cmd->add_flag("--write-through-link", args->write_through_link,
+                "When the output is a symbolic link, replace the file it points to");
   cmd->callback([args, &action] {
     action = [args] {
+      // Before the project is read: a bad output path is found at once.
+      check_output_target(
+          args->output, args->write_through_link ? LinkPolicy::write_through : LinkPolicy::refuse);
       project::Project project = project::load_project(args->project);
       style::Style style = style::load_style(project.style);
       render::RenderOptions options;
       options.format = format_for(args->output);
       options.raster_dpi = args->dpi;
+      options.write_through_link = args->write_through_link;
       if (!args->sheet.empty()) options.sheet_id = args->sheet;
       render::RenderReport report = render::render_sheet(project, style, args->output, options);
       for (const auto& layer : report.layers) {
