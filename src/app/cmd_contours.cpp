@@ -6,6 +6,7 @@
 
 #include "app/commands.hpp"
 #include "sheetmill/contours/contour_layer.hpp"
+#include "sheetmill/core/atomic_file.hpp"
 #include "sheetmill/core/log.hpp"
 #include "sheetmill/core/units.hpp"
 
@@ -53,6 +54,7 @@ void add_contours_command(CLI::App& app, Action& action, const GlobalOptions&) {
                 "text, angle_deg, up_deg)");
   cmd->callback([&action, args] {
     action = [args] {
+      check_output_target(args->out);  // before the DEM is read
       contours::ContourFileOptions options;
       options.prepare = !args->raw;
       options.labels = args->labels;

@@ -8,6 +8,7 @@
 #include <string>
 
 #include "app/commands.hpp"
+#include "sheetmill/core/atomic_file.hpp"
 #include "sheetmill/terrain/raster_products.hpp"
 #include "sheetmill/terrain/tint.hpp"
 
@@ -90,6 +91,7 @@ void add_relief_commands(CLI::App& app, Action& action, const GlobalOptions& glo
     add_shade_options(cmd, *shade);
     cmd->callback([&action, &global, in, shade] {
       action = [&global, in, shade] {
+        check_output_target(in->out);  // before the DEM is read
         terrain::ProductOptions o;
         o.read = in->read_options();
         o.compression = in->compression;
@@ -114,6 +116,7 @@ void add_relief_commands(CLI::App& app, Action& action, const GlobalOptions& glo
         ->capture_default_str();
     cmd->callback([&action, &global, in, units, method] {
       action = [&global, in, units, method] {
+        check_output_target(in->out);  // before the DEM is read
         terrain::ProductOptions o;
         o.read = in->read_options();
         o.compression = in->compression;
@@ -141,12 +144,14 @@ void add_relief_commands(CLI::App& app, Action& action, const GlobalOptions& glo
     add_shade_options(cmd, *shade);
     cmd->callback([&action, &global, in, shade, ramp, rgba, strength] {
       action = [&global, in, shade, ramp, rgba, strength] {
+        check_output_target(in->out);  // before the DEM or the ramp is read
         terrain::ReliefParams p;
         p.tint = true;
         p.ramp = terrain::load_ramp_file(*ramp);
         p.shade = *strength > 0;
         p.shade_strength = *strength;
         p.shading = shade->params();
+        check_output_target(in->out);  // before the DEM is read
         terrain::ProductOptions o;
         o.read = in->read_options();
         o.compression = in->compression;

@@ -171,6 +171,10 @@ AtomicOutput::AtomicOutput(fs::path target, LinkPolicy links)
       file_(resolve_output_target(target_, links)),
       temp_((remove_stale_temps(file_), sibling_temp_path(file_)), target_.string()) {}
 
+void AtomicOutput::clear_temp_for_writer() {
+  ::unlink(temp_.path().c_str());
+}
+
 void AtomicOutput::commit() {
   if (committed_) return;
   const std::string shown = target_.string();

@@ -77,12 +77,18 @@ std::string library_write_failure(const std::filesystem::path& target,
       return errno_text(err) + " (" + library_message + ")";
     }
   }
+  // SQLite's words for SQLITE_FULL (its sqlite3ErrStr table).
+  if (library_message.find("database or disk is full") != std::string::npos) {
+    return errno_text(ENOSPC) + " (" + library_message + ")";
+  }
   std::filesystem::path dir = target.parent_path().empty() ? "." : target.parent_path();
   struct statvfs fs {};
-  // Less than 1 MiB free after a failed write: the disk is full (a failed tile or page write
-  // leaves at most its own size unused).
-  constexpr double kFullBytes = 1024.0 * 1024.0;
-  if (::statvfs(dir.c_str(), &fs) == 0 && double(fs.f_bavail) * double(fs.f_frsize) < kFullBytes) {
+  // Less than 1 MiB and under 5 % free after a failed write: the disk is full (a failed tile or
+  // page write leaves at most its own size unused).
+  constexpr double kFullBytes = 1024.0 * 1024.0, kFullFraction = 0.05;
+  if (::statvfs(dir.c_str(), &fs) == 0 && fs.f_blocks > 0 &&
+      double(fs.f_bavail) * double(fs.f_frsize) < kFullBytes &&
+      double(fs.f_bavail) < kFullFraction * double(fs.f_blocks)) {
     return errno_text(ENOSPC) + (library_message.empty() ? "" : " (" + library_message + ")");
   }
   return library_message.empty() ? std::string("the library gave no reason") : library_message;

@@ -59,6 +59,9 @@ class AtomicOutput {
 
   // Where to write: an empty file that exists already; writers truncate or replace it.
   const std::filesystem::path& temp_path() const { return temp_.path(); }
+  // Removes the empty temporary for a writer that insists on creating its file itself (GDAL's
+  // GeoPackage driver); the name stays this output's, and is still removed on failure.
+  void clear_temp_for_writer();
   // The path as the caller named it (for messages).
   const std::filesystem::path& target() const { return target_; }
 
