@@ -8,6 +8,7 @@
 #include <atomic>
 #include <cerrno>
 #include <cstring>
+#include <fstream>
 
 #include "sheetmill/core/error.hpp"
 #include "sheetmill/core/file_writer.hpp"
@@ -145,7 +146,15 @@ std::optional<pid_t> temp_owner_pid(const std::string& file_name) {
 
 bool process_alive(pid_t pid) {
   if (pid <= 0) return false;
-  return ::kill(pid, 0) == 0 || errno == EPERM;
+  if (::kill(pid, 0) != 0 && errno != EPERM) return false;
+  // A zombie (killed, not yet reaped: an orphaned batch worker under a container's init that
+  // does not reap) answers kill() but writes nothing: state Z or X in /proc/PID/stat (proc(5)).
+  std::ifstream stat("/proc/" + std::to_string(pid) + "/stat");
+  std::string line;
+  if (!std::getline(stat, line)) return true;
+  std::size_t paren = line.rfind(')');
+  char state = paren != std::string::npos && paren + 2 < line.size() ? line[paren + 2] : '?';
+  return state != 'Z' && state != 'X';
 }
 
 int remove_stale_temps(const fs::path& target) {
