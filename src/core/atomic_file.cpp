@@ -94,13 +94,16 @@ void check_output_target(const fs::path& target, LinkPolicy links) {
 }
 
 TempFile::TempFile(fs::path path, const std::string& shown_as) : path_(std::move(path)) {
+  // Registered before it exists: a signal between the two must not leave it behind.
+  slot_ = register_temp(path_);
   int fd = ::open(path_.c_str(), O_WRONLY | O_CREAT | O_EXCL | O_CLOEXEC, 0666);
   if (fd < 0) {
+    int err = errno;
+    unregister_temp(slot_);
     throw_input_error(shown_as,
-                      "cannot write in " + folder_of(path_).string() + ": " + errno_text(errno));
+                      "cannot write in " + folder_of(path_).string() + ": " + errno_text(err));
   }
   ::close(fd);
-  slot_ = register_temp(path_);
 }
 
 TempFile::~TempFile() {
