@@ -1,4 +1,4 @@
-#include "pdf/checked_output.hpp"
+#include "sheetmill/pdf/checked_output.hpp"
 
 #include <cstring>
 #include <fstream>

@@ -14,7 +14,6 @@
 #include <qpdf/QPDFWriter.hh>
 #include <system_error>
 
-#include "pdf/checked_output.hpp"
 #include "pdf/geo_viewport.hpp"
 #include "pdf/raster_export.hpp"
 #include "sheetmill/core/atomic_file.hpp"
@@ -22,6 +21,7 @@
 #include "sheetmill/core/file_writer.hpp"
 #include "sheetmill/core/handles.hpp"
 #include "sheetmill/core/units.hpp"
+#include "sheetmill/pdf/checked_output.hpp"
 
 namespace sheetmill::pdf {
 

@@ -1,5 +1,5 @@
 #pragma once
-// Checked sinks for the libraries that write our files (private to the pdf stage): a Cairo
+// Checked sinks for the libraries that write our files (the pdf stage and the batch merge): a Cairo
 // write callback and a qpdf pipeline over core's FileWriter, so every byte's write is checked
 // and a full disk is named, and the checks that a finished file is whole before it is renamed.
 
