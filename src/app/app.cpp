@@ -8,6 +8,7 @@
 #include "sheetmill/core/error.hpp"
 #include "sheetmill/core/gdal_env.hpp"
 #include "sheetmill/core/log.hpp"
+#include "sheetmill/core/temp_registry.hpp"
 
 namespace sheetmill::app {
 
@@ -75,6 +76,8 @@ int run(int argc, const char* const* argv) {
   log::set_level(global.quiet     ? log::Level::error
                  : global.verbose ? log::Level::debug
                                   : log::Level::info);
+  // An interrupted render or batch removes its temporaries (core/temp_registry.hpp).
+  install_temp_cleanup_on_signals();
   try {
     gdal_init();  // from here on GDAL's own messages go through the log
     return action ? action() : 0;

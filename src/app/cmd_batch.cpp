@@ -22,6 +22,7 @@ struct BatchOptions {
   std::string progress = "auto";
   bool force = false;
   bool list = false;
+  bool wait = false;
 };
 }  // namespace
 
@@ -50,6 +51,8 @@ void add_batch_command(CLI::App& app, Action& action, const GlobalOptions&) {
       ->type_name("HOW")
       ->capture_default_str();
   cmd->add_flag("--force", opt->force, "Render even the sheets that are up to date");
+  cmd->add_flag("--wait", opt->wait,
+                "When another batch is writing to the output folder, wait for it to end");
   cmd->add_flag("--list", opt->list, "List the selected sheets and whether each is up to date");
   cmd->callback([opt, &action] {
     action = [opt] {
@@ -59,6 +62,7 @@ void add_batch_command(CLI::App& app, Action& action, const GlobalOptions&) {
       req.workers = opt->workers;
       req.force = opt->force;
       req.list_only = opt->list;
+      req.wait_for_lock = opt->wait;
       req.merged_pdf = opt->single_file;
       if (!opt->shard.empty()) req.shard = opt->shard;
       if (!opt->sheets.empty()) req.selection.ids = batch::split_list(opt->sheets);

@@ -7,6 +7,7 @@
 #include "app/commands.hpp"
 #include "app/option_checks.hpp"
 #include "sheetmill/contours/contour_layer.hpp"
+#include "sheetmill/core/atomic_file.hpp"
 #include "sheetmill/core/log.hpp"
 #include "sheetmill/core/plural.hpp"
 #include "sheetmill/core/scale_text.hpp"
@@ -72,6 +73,7 @@ void add_contours_command(CLI::App& app, Action& action, const GlobalOptions&) {
                 "text, angle_deg, up_deg)");
   cmd->callback([&action, args] {
     action = [args] {
+      check_output_target(args->out);  // before the DEM is read
       args->params.scale_denominator = *parse_scale_denominator(args->scale);
       contours::ContourFileOptions options;
       options.prepare = !args->raw;

@@ -10,6 +10,7 @@
 #include "app/commands.hpp"
 #include "app/option_checks.hpp"
 #include "sheetmill/core/file_format.hpp"
+#include "sheetmill/core/atomic_file.hpp"
 #include "sheetmill/terrain/raster_products.hpp"
 #include "sheetmill/terrain/tint.hpp"
 
@@ -103,6 +104,7 @@ void add_relief_commands(CLI::App& app, Action& action, const GlobalOptions& glo
     cmd->callback([&action, &global, in, shade] {
       action = [&global, in, shade] {
         file_format_for(in->out, {FileFormat::geotiff});
+        check_output_target(in->out);  // before the DEM is read
         terrain::ProductOptions o;
         o.read = in->read_options();
         o.compression = in->compression;
@@ -130,6 +132,7 @@ void add_relief_commands(CLI::App& app, Action& action, const GlobalOptions& glo
     cmd->callback([&action, &global, in, units, method] {
       action = [&global, in, units, method] {
         file_format_for(in->out, {FileFormat::geotiff});
+        check_output_target(in->out);  // before the DEM is read
         terrain::ProductOptions o;
         o.read = in->read_options();
         o.compression = in->compression;
@@ -161,6 +164,7 @@ void add_relief_commands(CLI::App& app, Action& action, const GlobalOptions& glo
     cmd->callback([&action, &global, in, shade, ramp, rgba, strength] {
       action = [&global, in, shade, ramp, rgba, strength] {
         file_format_for(in->out, {FileFormat::geotiff});
+        check_output_target(in->out);  // before the DEM or the ramp is read
         terrain::ReliefParams p;
         p.tint = true;
         p.ramp = terrain::load_ramp_file(*ramp);

@@ -3,6 +3,7 @@
 #include "app/commands.hpp"
 #include "app/option_checks.hpp"
 #include "sheetmill/core/file_format.hpp"
+#include "sheetmill/core/atomic_file.hpp"
 #include "sheetmill/core/log.hpp"
 #include "sheetmill/core/plural.hpp"
 #include "sheetmill/project/project.hpp"
@@ -18,6 +19,7 @@ struct RenderArgs {
   std::string sheet;
   std::string style;
   double dpi = 150;
+  bool write_through_link = false;
 };
 }  // namespace
 
@@ -40,9 +42,13 @@ void add_render_command(CLI::App& app, Action& action, const GlobalOptions&) {
       ->check(number_from(20, 1200, "a resolution", "dots per inch"))
       ->type_name("DPI")
       ->capture_default_str();
+  cmd->add_flag("--write-through-link", args->write_through_link,
+                "When the output is a symbolic link, replace the file it points to");
   cmd->callback([args, &action] {
     action = [args] {
-      // The format first: a wrong extension is refused before any data is read.
+      // The format and the target first: a bad output is refused before any data is read.
+      check_output_target(
+          args->output, args->write_through_link ? LinkPolicy::write_through : LinkPolicy::refuse);
       render::RenderOptions options;
       options.format =
           file_format_for(args->output, {FileFormat::pdf, FileFormat::png, FileFormat::geotiff});
@@ -50,6 +56,7 @@ void add_render_command(CLI::App& app, Action& action, const GlobalOptions&) {
       style::Style style = style::load_style(
           args->style.empty() ? project.style : std::filesystem::path(args->style));
       options.raster_dpi = args->dpi;
+      options.write_through_link = args->write_through_link;
       if (!args->sheet.empty()) options.sheet_id = args->sheet;
       render::RenderReport report = render::render_sheet(project, style, args->output, options);
       for (const auto& layer : report.layers) {

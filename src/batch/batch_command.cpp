@@ -4,6 +4,7 @@
 
 #include <cstdio>
 
+#include "sheetmill/batch/folder_lock.hpp"
 #include "sheetmill/batch/input_digest.hpp"
 #include "sheetmill/batch/json_text.hpp"
 #include "sheetmill/batch/merge_pdf.hpp"
@@ -11,6 +12,7 @@
 #include "sheetmill/batch/report.hpp"
 #include "sheetmill/batch/stamp.hpp"
 #include "sheetmill/batch/tile_index_io.hpp"
+#include "sheetmill/core/atomic_file.hpp"
 #include "sheetmill/core/error.hpp"
 #include "sheetmill/core/log.hpp"
 #include "sheetmill/project/project.hpp"
@@ -71,7 +73,14 @@ int run_batch_command(const BatchRequest& req) {
     return 0;
   }
 
-  fs::create_directories(out_dir);
+  {
+    std::error_code ec;
+    fs::create_directories(out_dir, ec);
+    if (ec) throw_input_error(out_dir.string(), "cannot create the output folder: " + ec.message());
+  }
+  // Before any sheet: a folder the batch cannot write is found now, not in every sheet.
+  check_output_target(out_dir / (report_stem(shard) + ".json"));
+  FolderLock lock(out_dir, shard, req.wait_for_lock);
   WorkerSetup setup = [&project, &style, &digest_inputs] {
     // In the worker process: datasets opened here stay open for all its sheets.
     auto digester = std::make_shared<InputDigester>(digest_inputs);

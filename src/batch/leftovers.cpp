@@ -1,7 +1,10 @@
 #include "sheetmill/batch/leftovers.hpp"
 
 #include <map>
+#include <optional>
 #include <set>
+
+#include "sheetmill/core/atomic_file.hpp"
 
 namespace sheetmill::batch {
 
@@ -29,6 +32,10 @@ int remove_leftovers(const std::vector<SheetJob>& jobs) {
            dot != std::string::npos && !ours; dot = entry.find('.', dot + 1)) {
         ours = names.count(entry.substr(start, dot - start)) > 0;
       }
+      // Only a dead writer's: a live process (a render of the same file started by hand, or
+      // a batch that does not hold the folder lock) keeps its temporary.
+      std::optional<pid_t> owner = temp_owner_pid(entry);
+      if (ours && owner && process_alive(*owner)) ours = false;
       std::error_code rm;
       if (ours && it->is_regular_file(rm) && fs::remove(it->path(), rm)) ++removed;
     }

@@ -12,6 +12,8 @@
 
 #include "sheetmill/core/atomic_file.hpp"
 #include "sheetmill/core/error.hpp"
+#include "sheetmill/core/file_writer.hpp"
+#include "sheetmill/pdf/checked_output.hpp"
 
 namespace sheetmill::batch {
 
@@ -21,7 +23,8 @@ namespace {
 
 constexpr std::size_t kOpenAtOnce = 200;
 
-void merge_into(const std::vector<fs::path>& inputs, const fs::path& temp) {
+void merge_into(const std::vector<fs::path>& inputs, const fs::path& temp,
+                const std::string& shown_as) {
   QPDF out;
   out.emptyPDF();
   QPDFPageDocumentHelper out_pages(out);
@@ -39,9 +42,15 @@ void merge_into(const std::vector<fs::path>& inputs, const fs::path& temp) {
     }
     sources.push_back(std::move(in));
   }
-  QPDFWriter w(out, temp.c_str());
+  // Checked writes: a full disk names its reason instead of leaving a short file.
+  FileWriter file(temp, shown_as);
+  pdf::QpdfSink sink(file);
+  QPDFWriter w(out);
+  w.setOutputPipeline(&sink);
   w.setStaticID(false);
   w.write();
+  file.close();
+  pdf::verify_pdf(temp, out_pages.getAllPages().size(), shown_as);
 }
 
 }  // namespace
@@ -51,7 +60,7 @@ void merge_pdfs(const std::vector<fs::path>& inputs, const fs::path& output) {
   AtomicOutput out(output);
   try {
     if (inputs.size() <= kOpenAtOnce) {
-      merge_into(inputs, out.temp_path());
+      merge_into(inputs, out.temp_path(), output.string());
     } else {
       // Merge in groups, then merge the groups (each group file is a temporary too).
       std::vector<std::unique_ptr<AtomicOutput>> groups;
@@ -61,7 +70,7 @@ void merge_pdfs(const std::vector<fs::path>& inputs, const fs::path& output) {
             inputs.begin() + static_cast<long>(at),
             inputs.begin() + static_cast<long>(std::min(inputs.size(), at + kOpenAtOnce)));
         auto g = std::make_unique<AtomicOutput>(output.string() + ".group" + std::to_string(at));
-        merge_into(chunk, g->temp_path());
+        merge_into(chunk, g->temp_path(), output.string());
         group_paths.push_back(g->temp_path());
         groups.push_back(std::move(g));
       }

@@ -3,29 +3,15 @@
 #include <fmt/format.h>
 
 #include <algorithm>
-#include <fstream>
 
 #include "sheetmill/batch/json_text.hpp"
 #include "sheetmill/batch/stamp.hpp"
-#include "sheetmill/core/atomic_file.hpp"
 #include "sheetmill/core/error.hpp"
+#include "sheetmill/core/file_writer.hpp"
 
 namespace sheetmill::batch {
 
 namespace fs = std::filesystem;
-
-namespace {
-void write_atomically(const fs::path& path, const std::string& text) {
-  AtomicOutput out(path);
-  {
-    std::ofstream f(out.temp_path(), std::ios::binary);
-    f << text;
-    f.close();
-    if (!f) throw_input_error(path.string(), "cannot write the batch report");
-  }
-  out.commit();
-}
-}  // namespace
 
 void write_report_json(const BatchResult& r, const ReportContext& c, const fs::path& path) {
   long peak = 0;
@@ -78,7 +64,7 @@ void write_report_json(const BatchResult& r, const ReportContext& c, const fs::p
     t += "]}";
   }
   t += "\n  ]\n}\n";
-  write_atomically(path, t);
+  write_file_atomically(path, t);
 }
 
 void write_report_csv(const BatchResult& r, const fs::path& path) {
@@ -91,7 +77,7 @@ void write_report_csv(const BatchResult& r, const fs::path& path) {
          csv_field(o.output.string()) + "," + std::to_string(o.output_bytes) + "," +
          csv_field(o.reason) + "," + csv_field(o.error) + "\n";
   }
-  write_atomically(path, t);
+  write_file_atomically(path, t);
 }
 
 }  // namespace sheetmill::batch

@@ -22,6 +22,7 @@
 #include "sheetmill/batch/progress.hpp"
 #include "sheetmill/core/error.hpp"
 #include "sheetmill/core/log.hpp"
+#include "sheetmill/core/temp_registry.hpp"
 
 namespace sheetmill::batch {
 
@@ -90,9 +91,13 @@ Worker spawn(int slot, const std::vector<SheetJob>& jobs, const WorkerSetup& set
     if (::getppid() != parent) ::_exit(4);
     // The parent's handlers (a test framework's, a crash reporter's) are not the worker's:
     // a crash must end the worker, which the batch then reports.
-    for (int sig : {SIGPIPE, SIGABRT, SIGSEGV, SIGBUS, SIGFPE, SIGILL, SIGTERM, SIGINT}) {
+    for (int sig : {SIGPIPE, SIGABRT, SIGSEGV, SIGBUS, SIGFPE, SIGILL}) {
       ::signal(sig, SIG_DFL);
     }
+    // An interrupted worker removes the temporaries of the sheet it was writing, then dies of
+    // the signal; the parent's registry (and its other workers) are not its own.
+    forget_inherited_temps_and_children();
+    install_temp_cleanup_on_signals();
     for (const Worker& w : others) {
       ::close(w.job_fd);
       ::close(w.result_fd);
@@ -103,6 +108,7 @@ Worker spawn(int slot, const std::vector<SheetJob>& jobs, const WorkerSetup& set
   }
   ::close(to_worker[0]);
   ::close(from_worker[1]);
+  register_child(pid);  // a signal to the batch reaches the worker's clean-up first
   Worker w;
   w.slot = slot;
   w.pid = pid;
@@ -219,6 +225,7 @@ BatchResult run_batch(const std::vector<SheetJob>& jobs, const WorkerSetup& setu
         // End of file: the worker is gone, normally or not.
         int status = 0;
         ::waitpid(w.pid, &status, 0);
+        unregister_child(w.pid);
         ::close(w.result_fd);
         if (w.job_fd >= 0) ::close(w.job_fd);
         w.pid = -1;
@@ -251,6 +258,7 @@ BatchResult run_batch(const std::vector<SheetJob>& jobs, const WorkerSetup& setu
       if (w.pid > 0) {
         ::kill(w.pid, SIGKILL);
         ::waitpid(w.pid, nullptr, 0);
+        unregister_child(w.pid);
       }
       if (w.job_fd >= 0) ::close(w.job_fd);
       if (w.result_fd >= 0) ::close(w.result_fd);

@@ -6,11 +6,10 @@
 #include <yaml-cpp/yaml.h>
 
 #include <ctime>
-#include <fstream>
 
 #include "sheetmill/batch/json_text.hpp"
-#include "sheetmill/core/atomic_file.hpp"
 #include "sheetmill/core/error.hpp"
+#include "sheetmill/core/file_writer.hpp"
 
 namespace sheetmill::batch {
 
@@ -38,14 +37,7 @@ void write_stamp(const fs::path& output, const Stamp& s) {
     first = false;
   }
   text += "\n  }\n}\n";
-  AtomicOutput out(stamp_path(output));
-  {
-    std::ofstream f(out.temp_path(), std::ios::binary);
-    f << text;
-    f.close();
-    if (!f) throw_input_error(out.target().string(), "cannot write the stamp");
-  }
-  out.commit();
+  write_file_atomically(stamp_path(output), text);
 }
 
 std::optional<Stamp> read_stamp(const fs::path& output) {

@@ -9,6 +9,7 @@
 
 #include "sheetmill/core/atomic_file.hpp"
 #include "sheetmill/core/error.hpp"
+#include "sheetmill/core/file_writer.hpp"
 #include "sheetmill/core/gdal_env.hpp"
 #include "sheetmill/core/handles.hpp"
 #include "sheetmill/core/utf8.hpp"
@@ -66,10 +67,9 @@ void write_tile_index(const IndexPlan& plan, const fs::path& gpkg, const std::st
   GdalErrorScope errors;
   GDALDriver* driver = GetGDALDriverManager()->GetDriverByName("GPKG");
   if (!driver) throw_internal_error("GDAL has no GeoPackage driver");
-  fs::path dir = gpkg.parent_path();
-  if (!dir.empty() && !fs::is_directory(dir)) {
-    throw_input_error(gpkg.string(), "output folder " + dir.string() + " does not exist");
-  }
+  // A missing folder, or a device, FIFO, folder or link at the target, is refused before
+  // anything is written (core/atomic_file.hpp).
+  resolve_output_target(gpkg);
   // The GeoPackage driver wants its extension; the temporary keeps it, then replaces the target.
   fs::path temp = sibling_temp_path(gpkg, "part.gpkg");
   struct Cleanup {
@@ -82,7 +82,10 @@ void write_tile_index(const IndexPlan& plan, const fs::path& gpkg, const std::st
   } cleanup{temp};
   {
     DatasetPtr ds(driver->Create(temp.c_str(), 0, 0, 0, GDT_Unknown, nullptr));
-    if (!ds) throw_input_error(gpkg.string(), "cannot create (" + errors.last_failure() + ")");
+    if (!ds) {
+      throw_input_error(gpkg.string(),
+                        "cannot create: " + library_write_failure(gpkg, errors.last_failure()));
+    }
     OGRSpatialReference srs;
     srs.importFromWkt(plan.crs_wkt.c_str());
     srs.SetAxisMappingStrategy(OAMS_TRADITIONAL_GIS_ORDER);
@@ -118,21 +121,24 @@ void write_tile_index(const IndexPlan& plan, const fs::path& gpkg, const std::st
       poly.addRing(&ring);
       f->SetGeometry(&poly);
       if (layer->CreateFeature(f.get()) != OGRERR_NONE) {
-        throw_input_error(gpkg.string(),
-                          "cannot write sheet " + s.id + ": " + errors.last_failure());
+        throw_input_error(gpkg.string(), "cannot write sheet " + s.id + ": " +
+                                             library_write_failure(gpkg, errors.last_failure()));
       }
     }
     if (layer->CommitTransaction() != OGRERR_NONE) {
-      throw_input_error(gpkg.string(), "cannot write: " + errors.last_failure());
+      throw_input_error(gpkg.string(),
+                        "cannot write: " + library_write_failure(gpkg, errors.last_failure()));
     }
     errors.clear();
     ds.reset();  // closing writes the GeoPackage's last pages
     if (!errors.last_failure().empty()) {
-      throw_input_error(gpkg.string(), "cannot finish the file: " + errors.last_failure());
+      throw_input_error(gpkg.string(), "cannot finish the file: " +
+                                           library_write_failure(gpkg, errors.last_failure()));
     }
   }
+  resolve_output_target(gpkg);  // still not a device: never rename over one
   if (std::rename(temp.c_str(), gpkg.c_str()) != 0) {
-    throw_input_error(gpkg.string(), "cannot replace the file");
+    throw_input_error(gpkg.string(), "cannot replace the file: " + errno_text(errno));
   }
   cleanup.keep = true;
 }

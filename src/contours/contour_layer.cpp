@@ -15,6 +15,7 @@
 #include "sheetmill/core/atomic_file.hpp"
 #include "sheetmill/core/caution.hpp"
 #include "sheetmill/core/error.hpp"
+#include "sheetmill/core/file_writer.hpp"
 #include "sheetmill/core/gdal_env.hpp"
 #include "sheetmill/core/log.hpp"
 #include "sheetmill/labels/candidate.hpp"
@@ -32,7 +33,9 @@ void write_label_layer(GDALDataset& ds, const std::vector<LabelPoint>& labels,
   const char* lco[] = {"SPATIAL_INDEX=YES", description.c_str(), nullptr};
   OGRLayer* layer = ds.CreateLayer("contour_labels", const_cast<OGRSpatialReference*>(srs),
                                    wkbPoint, const_cast<char**>(lco));
-  if (!layer) throw_input_error(out.string(), "cannot create the layer: " + errors.last_failure());
+  if (!layer)
+    throw_input_error(out.string(), "cannot create the layer: " +
+                                        library_write_failure(out, errors.last_failure()));
   OGRFieldDefn elev("elevation", OFTReal), text("text", OFTString), angle("angle_deg", OFTReal),
       up("up_deg", OFTReal);
   for (OGRFieldDefn* f : {&elev, &text, &angle, &up}) layer->CreateField(f);
@@ -46,10 +49,12 @@ void write_label_layer(GDALDataset& ds, const std::vector<LabelPoint>& labels,
     f->SetField(3, l.up_deg);
     f->SetGeometryDirectly(new OGRPoint(l.ground.x, l.ground.y));
     if (layer->CreateFeature(f.get()) != OGRERR_NONE)
-      throw_input_error(out.string(), "cannot write a feature: " + errors.last_failure());
+      throw_input_error(out.string(), "cannot write a feature: " +
+                                          library_write_failure(out, errors.last_failure()));
   }
   if (ds.CommitTransaction() != OGRERR_NONE)
-    throw_input_error(out.string(), "cannot write the GeoPackage: " + errors.last_failure());
+    throw_input_error(out.string(), "cannot write the GeoPackage: " +
+                                        library_write_failure(out, errors.last_failure()));
 }
 
 // Page (y down, clockwise angles) to ground (y up, counter-clockwise), degrees in [0, 360).
@@ -96,10 +101,12 @@ void write_geopackage(const std::filesystem::path& out, const std::vector<Contou
   GDALDriver* drv = GetGDALDriverManager()->GetDriverByName("GPKG");
   if (!drv) throw_internal_error("GDAL has no GeoPackage driver");
   AtomicOutput file(out);
+  file.clear_temp_for_writer();  // the GeoPackage driver will not create over an existing file
   {
     DatasetPtr ds(drv->Create(file.temp_path().c_str(), 0, 0, 0, GDT_Unknown, nullptr));
     if (!ds)
-      throw_input_error(out.string(), "cannot create a GeoPackage: " + errors.last_failure());
+      throw_input_error(out.string(), "cannot create a GeoPackage: " +
+                                          library_write_failure(out, errors.last_failure()));
     OGRSpatialReference srs;
     bool has_srs = !crs_wkt.empty() && srs.importFromWkt(crs_wkt.c_str()) == OGRERR_NONE;
     const std::string description = std::string("DESCRIPTION=") + kProductCaution;
@@ -107,7 +114,8 @@ void write_geopackage(const std::filesystem::path& out, const std::vector<Contou
     OGRLayer* layer = ds->CreateLayer("contours", has_srs ? &srs : nullptr, wkbLineString,
                                       const_cast<char**>(lco));
     if (!layer)
-      throw_input_error(out.string(), "cannot create the layer: " + errors.last_failure());
+      throw_input_error(out.string(), "cannot create the layer: " +
+                                          library_write_failure(out, errors.last_failure()));
     OGRFieldDefn elev("elevation", OFTReal);
     layer->CreateField(&elev);
     for (const char* name : {"index", "depression", "supplementary"}) {
@@ -131,15 +139,29 @@ void write_geopackage(const std::filesystem::path& out, const std::vector<Contou
       if (l.closed) ls->setPoint(static_cast<int>(l.ground.size()), l.ground[0].x, l.ground[0].y);
       f->SetGeometryDirectly(ls);
       if (layer->CreateFeature(f.get()) != OGRERR_NONE)
-        throw_input_error(out.string(), "cannot write a feature: " + errors.last_failure());
+        throw_input_error(out.string(), "cannot write a feature: " +
+                                            library_write_failure(out, errors.last_failure()));
     }
     if (ds->CommitTransaction() != OGRERR_NONE)
-      throw_input_error(out.string(), "cannot write the GeoPackage: " + errors.last_failure());
+      throw_input_error(out.string(), "cannot write the GeoPackage: " +
+                                          library_write_failure(out, errors.last_failure()));
     if (labels) write_label_layer(*ds, *labels, has_srs ? &srs : nullptr, out);
     errors.clear();
     ds.reset();  // closes the file (GDAL 3.6 reports close errors through CPLError only)
     if (!errors.last_failure().empty())
-      throw_input_error(out.string(), "cannot finish the GeoPackage: " + errors.last_failure());
+      throw_input_error(out.string(), "cannot finish the GeoPackage: " +
+                                          library_write_failure(out, errors.last_failure()));
+  }
+  // Read back before the rename: SQLite reports a full disk at commit, but a file cut short at
+  // close would only show when opened.
+  {
+    GdalErrorScope reading;
+    DatasetPtr back(GDALDataset::Open(file.temp_path().c_str(), GDAL_OF_VECTOR | GDAL_OF_READONLY));
+    OGRLayer* layer = back ? back->GetLayerByName("contours") : nullptr;
+    if (!layer || layer->GetFeatureCount() != static_cast<GIntBig>(lines.size())) {
+      throw_input_error(out.string(), "the written GeoPackage does not read back whole (" +
+                                          library_write_failure(out, reading.last_failure()) + ")");
+    }
   }
   file.commit();
 }

@@ -18,8 +18,10 @@
 #include "pdf/raster_export.hpp"
 #include "sheetmill/core/atomic_file.hpp"
 #include "sheetmill/core/error.hpp"
+#include "sheetmill/core/file_writer.hpp"
 #include "sheetmill/core/handles.hpp"
 #include "sheetmill/core/units.hpp"
+#include "sheetmill/pdf/checked_output.hpp"
 
 namespace sheetmill::pdf {
 
@@ -100,31 +102,31 @@ std::string pdf_date_now() {
   return buf;
 }
 
-// Removes a temporary file when it goes out of scope.
-struct TempFile {
-  std::filesystem::path path;
-  ~TempFile() {
-    std::error_code ec;
-    std::filesystem::remove(path, ec);
-  }
-};
-
 // A name usable as a PDF name token and an XObject key: letters and digits only.
 std::string key_for(const std::string& prefix, std::size_t i) {
   return "/" + prefix + std::to_string(i + 1);
 }
 
+std::string shown_name(const std::filesystem::path& path, const std::string& shown_as) {
+  return shown_as.empty() ? path.string() : shown_as;
+}
+
 }  // namespace
 
 void LayeredCanvas::finish_pdf(const std::filesystem::path& path, const GeoRegistration& geo,
-                               const Metadata& meta) {
+                               const Metadata& meta, const std::string& shown_as) {
   end_group();
   const double w_pt = impl_->width_mm * kPtPerMm, h_pt = impl_->height_mm * kPtPerMm;
+  const std::string shown = shown_name(path, shown_as);
 
   // 1. Cairo: one page per group, so each group's fonts and images are its own resources.
-  TempFile pages{sibling_temp_path(path, "groups")};
+  //    Written through a checked sink: Cairo's own file output does not say why a write failed.
+  TempFile pages(sibling_temp_path(path, "groups"), shown);
   {
-    CairoSurfacePtr surface(cairo_pdf_surface_create(pages.path.c_str(), w_pt, h_pt));
+    FileWriter pages_file(pages.path(), shown);
+    CairoSink sink(pages_file);
+    CairoSurfacePtr surface(
+        cairo_pdf_surface_create_for_stream(&CairoSink::write, &sink, w_pt, h_pt));
     check_cairo(cairo_surface_status(surface.get()), "creating the PDF");
     CairoPtr cr(cairo_create(surface.get()));
     cairo_scale(cr.get(), kPtPerMm, kPtPerMm);
@@ -135,17 +137,20 @@ void LayeredCanvas::finish_pdf(const std::filesystem::path& path, const GeoRegis
     // One more, empty page: the composed page. Reusing a group's own page would make that
     // group's form read the page's replaced contents (qpdf copies page contents lazily).
     cairo_show_page(cr.get());
+    sink.rethrow_if_failed();
     check_cairo(cairo_status(cr.get()), "writing the PDF");
     cr.reset();
     cairo_surface_finish(surface.get());
+    sink.rethrow_if_failed();
     check_cairo(cairo_surface_status(surface.get()), "finishing the PDF");
+    pages_file.close(/*sync=*/false);  // a scratch file, read back at once
   }
 
   // 2. qpdf: every group page becomes a form XObject shown on the first page inside its
   //    optional content group; the other pages go.
   try {
     QPDF pdf;
-    pdf.processFile(pages.path.c_str());
+    pdf.processFile(pages.path().c_str());
     QPDFPageDocumentHelper doc(pdf);
     std::vector<QPDFPageObjectHelper> all = doc.getAllPages();
     std::size_t n = impl_->groups.size();
@@ -207,7 +212,10 @@ void LayeredCanvas::finish_pdf(const std::filesystem::path& path, const GeoRegis
     info.replaceKey("/ModDate", QPDFObjectHandle::newString(now));
     pdf.getTrailer().replaceKey("/Info", pdf.makeIndirectObject(info));
 
-    QPDFWriter writer(pdf, path.c_str());
+    FileWriter out(path, shown);
+    QpdfSink sink(out);
+    QPDFWriter writer(pdf);
+    writer.setOutputPipeline(&sink);
     writer.setObjectStreamMode(qpdf_o_generate);
     writer.setCompressStreams(true);
     // Cairo's streams are already compressed: pass them through instead of inflating and
@@ -215,14 +223,19 @@ void LayeredCanvas::finish_pdf(const std::filesystem::path& path, const GeoRegis
     writer.setDecodeLevel(qpdf_dl_none);
     writer.setMinimumPDFVersion("1.7");
     writer.write();
+    out.close();
   } catch (const Error&) {
     throw;
   } catch (const std::exception& e) {
     throw_internal_error(std::string("building the layered PDF with qpdf: ") + e.what());
   }
+  // The file on disk, not what we meant to write: it must open and have its one page.
+  verify_pdf(path, 1, shown);
 }
 
-void LayeredCanvas::finish_png(const std::filesystem::path& path, double dpi) {
+void LayeredCanvas::finish_png(const std::filesystem::path& path, double dpi,
+                               const std::string& shown_as) {
+  const std::string shown = shown_name(path, shown_as);
   end_group();
   int w = static_cast<int>(impl_->width_mm / kMmPerInch * dpi + 0.5);
   int h = static_cast<int>(impl_->height_mm / kMmPerInch * dpi + 0.5);
@@ -235,11 +248,18 @@ void LayeredCanvas::finish_png(const std::filesystem::path& path, double dpi) {
   for (const auto& g : impl_->groups) replay(cr.get(), g.recording.get());
   check_cairo(cairo_status(cr.get()), "drawing the image");
   cr.reset();
-  check_cairo(cairo_surface_write_to_png(surface.get(), path.c_str()), "writing the PNG");
+  FileWriter out(path, shown);
+  CairoSink sink(out);
+  cairo_status_t status =
+      cairo_surface_write_to_png_stream(surface.get(), &CairoSink::write, &sink);
+  sink.rethrow_if_failed();
+  check_cairo(status, "writing the PNG");
+  out.close();
+  verify_png(path, out.bytes_written(), shown);
 }
 
 void LayeredCanvas::finish_geotiff(const std::filesystem::path& path, double dpi,
-                                   const GeoRegistration& geo) {
+                                   const GeoRegistration& geo, const std::string& shown_as) {
   end_group();
   if (!(dpi > 0)) throw_input_error(path.string(), "the raster dpi must be positive");
   int w = static_cast<int>(impl_->width_mm / kMmPerInch * dpi + 0.5);
@@ -258,7 +278,7 @@ void LayeredCanvas::finish_geotiff(const std::filesystem::path& path, double dpi
                            g.max_y + f.min_y * m_per_mm,
                            0,
                            -px_mm * m_per_mm};
-  write_geotiff_strips(path, w, h, gt, geo.crs_wkt, [&](cairo_t* cr) {
+  write_geotiff_strips(path, shown_name(path, shown_as), w, h, gt, geo.crs_wkt, [&](cairo_t* cr) {
     cairo_scale(cr, dpi / kMmPerInch, dpi / kMmPerInch);
     for (const auto& grp : impl_->groups) replay(cr, grp.recording.get());
   });

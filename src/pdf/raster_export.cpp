@@ -5,13 +5,32 @@
 #include <vector>
 
 #include "sheetmill/core/error.hpp"
+#include "sheetmill/core/file_writer.hpp"
 #include "sheetmill/core/gdal_env.hpp"
 #include "sheetmill/core/handles.hpp"
 
 namespace sheetmill::pdf {
 
-void write_geotiff_strips(const std::filesystem::path& path, int width, int height,
-                          const std::array<double, 6>& gt, const std::string& crs_wkt,
+namespace {
+// Reopens the written file: a truncated GeoTIFF fails to open or to read its last row.
+void verify_geotiff(const std::filesystem::path& path, int width, int height,
+                    const std::string& shown_as) {
+  GdalErrorScope errors;
+  DatasetPtr ds(GDALDataset::Open(path.c_str(), GDAL_OF_RASTER | GDAL_OF_READONLY));
+  std::vector<unsigned char> row(static_cast<std::size_t>(width) * 3);
+  bool whole = ds && ds->GetRasterXSize() == width && ds->GetRasterYSize() == height &&
+               ds->GetRasterCount() == 3 &&
+               ds->RasterIO(GF_Read, 0, height - 1, width, 1, row.data(), width, 1, GDT_Byte, 3,
+                            nullptr, 3, static_cast<GSpacing>(width) * 3, 1, nullptr) == CE_None;
+  if (!whole) {
+    throw_input_error(shown_as, "the written GeoTIFF does not read back whole (" +
+                                    library_write_failure(path, errors.last_failure()) + ")");
+  }
+}
+}  // namespace
+
+void write_geotiff_strips(const std::filesystem::path& path, const std::string& shown_as, int width,
+                          int height, const std::array<double, 6>& gt, const std::string& crs_wkt,
                           const std::function<void(cairo_t*)>& draw, int strip_rows) {
   gdal_init();
   GdalErrorScope errors;
@@ -20,8 +39,10 @@ void write_geotiff_strips(const std::filesystem::path& path, int width, int heig
   const char* options[] = {"COMPRESS=DEFLATE", "PHOTOMETRIC=RGB", "TILED=YES", nullptr};
   DatasetPtr ds(
       driver->Create(path.c_str(), width, height, 3, GDT_Byte, const_cast<char**>(options)));
-  if (!ds)
-    throw_input_error(path.string(), "cannot create the GeoTIFF (" + errors.last_failure() + ")");
+  if (!ds) {
+    throw_input_error(shown_as, "cannot create the GeoTIFF: " +
+                                    library_write_failure(path, errors.last_failure()));
+  }
   double t[6] = {gt[0], gt[1], gt[2], gt[3], gt[4], gt[5]};
   ds->SetGeoTransform(t);
   if (!crs_wkt.empty()) {
@@ -57,16 +78,18 @@ void write_geotiff_strips(const std::filesystem::path& path, int width, int heig
     }
     CPLErr err = ds->RasterIO(GF_Write, 0, y0, width, rows, rgb.data(), width, rows, GDT_Byte, 3,
                               nullptr, 3, static_cast<GSpacing>(width) * 3, 1, nullptr);
-    if (err != CE_None)
-      throw_input_error(path.string(),
-                        "writing the GeoTIFF failed (" + errors.last_failure() + ")");
+    if (err != CE_None) {
+      throw_input_error(shown_as, "cannot write the GeoTIFF: " +
+                                      library_write_failure(path, errors.last_failure()));
+    }
   }
   ds->FlushCache(true);
   ds.reset();  // GDAL 3.6 closes in the destructor and reports failures through CPLError
   if (!errors.last_failure().empty()) {
-    throw_input_error(path.string(),
-                      "finishing the GeoTIFF failed (" + errors.last_failure() + ")");
+    throw_input_error(shown_as, "cannot write the GeoTIFF: " +
+                                    library_write_failure(path, errors.last_failure()));
   }
+  verify_geotiff(path, width, height, shown_as);
 }
 
 }  // namespace sheetmill::pdf

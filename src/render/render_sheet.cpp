@@ -52,6 +52,11 @@ RenderReport render_sheet(const project::Project& project, const style::Style& s
                           const std::filesystem::path& output, const RenderOptions& options) {
   gdal_init();
   const auto t_start = Clock::now();
+  const LinkPolicy links =
+      options.write_through_link ? LinkPolicy::write_through : LinkPolicy::refuse;
+  // Before any data is read: a missing or read-only folder, or a device at the target, is
+  // found in milliseconds, not after the whole sheet.
+  check_output_target(output, links);
   RenderReport report;
   report.output = output;
   log::WarningCollector warnings;
@@ -144,18 +149,19 @@ RenderReport render_sheet(const project::Project& project, const style::Style& s
 
   // Finish: the file appears whole or not at all.
   t0 = Clock::now();
-  AtomicOutput out(output);
+  AtomicOutput out(output, links);
+  const std::string shown = output.string();
   if (options.format == OutputFormat::png) {
-    canvas.finish_png(out.temp_path(), options.raster_dpi);
+    canvas.finish_png(out.temp_path(), options.raster_dpi, shown);
   } else if (options.format == OutputFormat::geotiff) {
-    canvas.finish_geotiff(out.temp_path(), options.raster_dpi, registration(frame));
+    canvas.finish_geotiff(out.temp_path(), options.raster_dpi, registration(frame), shown);
   } else {
     pdf::Metadata meta;
     meta.title = project.title;
     meta.subject = project.subtitle.empty() ? "Topographic sheet" : project.subtitle;
     meta.keywords = "topographic map; contours; " + frame.crs_name;
     meta.author = project.producer;
-    canvas.finish_pdf(out.temp_path(), registration(frame), meta);
+    canvas.finish_pdf(out.temp_path(), registration(frame), meta, shown);
   }
   out.commit();
   report.seconds_finish = seconds_since(t0);

@@ -13,6 +13,7 @@
 #include "sheetmill/core/atomic_file.hpp"
 #include "sheetmill/core/caution.hpp"
 #include "sheetmill/core/error.hpp"
+#include "sheetmill/core/file_writer.hpp"
 #include "sheetmill/core/gdal_env.hpp"
 #include "sheetmill/core/log.hpp"
 #include "sheetmill/terrain/dem_source.hpp"
@@ -82,9 +83,7 @@ void write_rows(GDALDataset& ds, int band, int row0, int rows, int width, GDALDa
   GDALRasterBand* b = band > 0 ? ds.GetRasterBand(band) : ds.GetRasterBand(1)->GetMaskBand();
   if (b->RasterIO(GF_Write, 0, row0, width, rows, const_cast<void*>(data), width, rows, type, 0, 0,
                   nullptr) != CE_None) {
-    throw_input_error(path, "writing failed" + (errors.last_failure().empty()
-                                                    ? std::string()
-                                                    : " (" + errors.last_failure() + ")"));
+    throw_input_error(path, "cannot write: " + library_write_failure(path, errors.last_failure()));
   }
 }
 
@@ -149,13 +148,36 @@ void for_each_band(const DemSource& src, GDALDataset& out, const ProductOptions&
   write_band(results[(k + 1) % 2], (k - 1) * step);
 }
 
+// Reopens the written raster and reads its last row: a file cut short at close fails here.
+void verify_reads_back(const AtomicOutput& out, int width, int height, int bands) {
+  GdalErrorScope errors;
+  DatasetPtr ds(GDALDataset::Open(out.temp_path().c_str(), GDAL_OF_RASTER | GDAL_OF_READONLY));
+  std::vector<double> row(static_cast<std::size_t>(width));
+  bool whole = ds && ds->GetRasterXSize() == width && ds->GetRasterYSize() == height &&
+               ds->GetRasterCount() == bands;
+  for (int b = 1; whole && b <= bands; ++b) {
+    whole = ds->GetRasterBand(b)->RasterIO(GF_Read, 0, height - 1, width, 1, row.data(), width, 1,
+                                           GDT_Float64, 0, 0, nullptr) == CE_None;
+  }
+  if (!whole) {
+    throw_input_error(out.target().string(),
+                      "the written raster does not read back whole (" +
+                          library_write_failure(out.temp_path(), errors.last_failure()) + ")");
+  }
+}
+
 void finish(DatasetPtr& ds, AtomicOutput& out) {
   auto t0 = std::chrono::steady_clock::now();
   GdalErrorScope errors;
+  const int width = ds->GetRasterXSize(), height = ds->GetRasterYSize();
+  const int bands = ds->GetRasterCount();
   ds.reset();  // closing flushes the last tiles; GDAL reports failures through the scope
   if (!errors.last_failure().empty()) {
-    throw_input_error(out.target().string(), "writing failed (" + errors.last_failure() + ")");
+    throw_input_error(
+        out.target().string(),
+        "cannot write: " + library_write_failure(out.temp_path(), errors.last_failure()));
   }
+  verify_reads_back(out, width, height, bands);
   auto t1 = std::chrono::steady_clock::now();
   out.commit();
   auto t2 = std::chrono::steady_clock::now();

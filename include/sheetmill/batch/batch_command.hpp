@@ -28,6 +28,9 @@ struct BatchRequest {
   bool list_only = false;            // print ID, status and output per sheet; render none
   std::filesystem::path merged_pdf;  // empty = none; relative = inside output_dir
   ProgressMode progress = ProgressMode::automatic;
+  // Another batch holds the output folder (batch/folder_lock.hpp): wait for it instead of
+  // exiting 2.
+  bool wait_for_lock = false;
 };
 
 int run_batch_command(const BatchRequest& request);

@@ -1,7 +1,8 @@
 #pragma once
 // Temporaries a killed batch left behind: ".NAME.<tag>" next to an output NAME (the pattern of
 // core/atomic_file.hpp, also nested: "..NAME.<tag>.<tag>"), for this batch's outputs and stamps
-// only, so shards sharing a folder never touch each other's files. Returns how many were removed.
+// only, so shards sharing a folder never touch each other's files, and only those whose writer
+// (the PID in the name) is no longer alive on this machine. Returns how many were removed.
 
 #include <vector>
 

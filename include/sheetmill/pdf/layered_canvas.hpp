@@ -58,14 +58,21 @@ class LayeredCanvas {
   // ISO 32000-2 geospatial viewport, and the document information. Written with qpdf after
   // Cairo finishes. Throws Error on a Cairo or PDF fault. An empty `geo.crs_wkt` writes no
   // viewport.
+  //
+  // Every finish checks every write (a full disk throws Error(input) with "no space left on
+  // device"), fsyncs, and reads the file back (the PDF opens with qpdf and has its page; the PNG
+  // ends with its last chunk; the GeoTIFF opens with GDAL at its size) before returning, so the
+  // caller renames only whole files. `shown_as` names the file in messages (the target the
+  // user asked for, when `path` is its temporary); empty = `path`.
   void finish_pdf(const std::filesystem::path& path, const GeoRegistration& geo,
-                  const Metadata& meta);
+                  const Metadata& meta, const std::string& shown_as = {});
   // Rasterises every group onto a white page at `dpi` and writes a PNG.
-  void finish_png(const std::filesystem::path& path, double dpi);
+  void finish_png(const std::filesystem::path& path, double dpi, const std::string& shown_as = {});
   // The same raster as an RGB GeoTIFF: the map frame's ground transform applied to the page
   // raster (pixel (0,0) is the page's top-left corner), CRS from `geo`. Rendered in strips, so
   // memory stays at a few rows of the page.
-  void finish_geotiff(const std::filesystem::path& path, double dpi, const GeoRegistration& geo);
+  void finish_geotiff(const std::filesystem::path& path, double dpi, const GeoRegistration& geo,
+                      const std::string& shown_as = {});
 
  private:
   struct Impl;

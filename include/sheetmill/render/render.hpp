@@ -26,6 +26,9 @@ struct RenderOptions {
   const sheet::TileIndexContents* tile_index = nullptr;
   // Fonts and shaping faces, likewise kept across a worker's sheets; null = a fresh cache.
   text::FontCache* fonts = nullptr;
+  // A symbolic link at the output is refused unless this is set; then the file it points to
+  // is replaced and the link stays (core/atomic_file.hpp).
+  bool write_through_link = false;
 };
 
 struct LayerReport {

@@ -1,0 +1,67 @@
+#include "sheetmill/pdf/checked_output.hpp"
+
+#include <cstring>
+#include <fstream>
+#include <qpdf/QPDF.hh>
+#include <qpdf/QPDFPageDocumentHelper.hh>
+
+namespace sheetmill::pdf {
+
+cairo_status_t CairoSink::write(void* closure, const unsigned char* data, unsigned int length) {
+  auto* self = static_cast<CairoSink*>(closure);
+  if (self->failure) return CAIRO_STATUS_WRITE_ERROR;
+  try {
+    self->writer.write(data, length);
+    return CAIRO_STATUS_SUCCESS;
+  } catch (const Error& e) {
+    self->failure = e;
+    return CAIRO_STATUS_WRITE_ERROR;
+  }
+}
+
+void CairoSink::rethrow_if_failed() const {
+  if (failure) throw *failure;
+}
+
+void QpdfSink::write(unsigned char const* data, size_t len) {
+  writer_.write(data, len);
+}
+
+void verify_pdf(const std::filesystem::path& path, std::size_t pages, const std::string& shown_as) {
+  std::size_t found = 0;
+  try {
+    QPDF pdf;
+    pdf.setSuppressWarnings(true);
+    // A truncated file loses its cross-reference table; recovery would hide that.
+    pdf.setAttemptRecovery(false);
+    pdf.processFile(path.c_str());
+    found = QPDFPageDocumentHelper(pdf).getAllPages().size();
+    if (pdf.anyWarnings()) found = 0;
+  } catch (const std::exception& e) {
+    throw_input_error(shown_as, std::string("the written PDF does not read back: ") + e.what());
+  }
+  if (found != pages) {
+    throw_input_error(shown_as, "the written PDF does not read back whole (" +
+                                    std::to_string(found) + " pages, expected " +
+                                    std::to_string(pages) + ")");
+  }
+}
+
+void verify_png(const std::filesystem::path& path, std::size_t bytes, const std::string& shown_as) {
+  // The last chunk of every PNG: length 0, "IEND", its CRC (ISO/IEC 15948 section 11.2.5).
+  static const unsigned char kIend[12] = {0, 0, 0, 0, 'I', 'E', 'N', 'D', 0xAE, 0x42, 0x60, 0x82};
+  std::error_code ec;
+  std::uintmax_t size = std::filesystem::file_size(path, ec);
+  unsigned char tail[12] = {};
+  if (!ec && size == bytes && size >= sizeof tail) {
+    std::ifstream in(path, std::ios::binary);
+    in.seekg(static_cast<std::streamoff>(size - sizeof tail));
+    in.read(reinterpret_cast<char*>(tail), sizeof tail);
+    if (in && std::memcmp(tail, kIend, sizeof tail) == 0) return;
+  }
+  throw_input_error(shown_as, "the written PNG does not read back whole (" +
+                                  std::to_string(ec ? 0 : size) + " bytes of " +
+                                  std::to_string(bytes) + ")");
+}
+
+}  // namespace sheetmill::pdf
