@@ -150,6 +150,21 @@ void set_colour(cairo_t* cr, const Colour& c) {
   cairo_set_source_rgba(cr, c.r, c.g, c.b, c.a);
 }
 
+// One font set-up for the halo's path and the fill: the face at `size_mm`, no hinting and no
+// hinted metrics, so both come from the same unhinted outlines at the same positions whatever
+// the surface (recording in mm, PDF, image); see LoadedFont in font.cpp.
+void use_font(cairo_t* cr, const Font& font, double size_mm) {
+  static cairo_font_options_t* const options = [] {
+    cairo_font_options_t* o = cairo_font_options_create();
+    cairo_font_options_set_hint_style(o, CAIRO_HINT_STYLE_NONE);
+    cairo_font_options_set_hint_metrics(o, CAIRO_HINT_METRICS_OFF);
+    return o;
+  }();
+  cairo_set_font_face(cr, font.cairo_face());
+  cairo_set_font_size(cr, size_mm);
+  cairo_set_font_options(cr, options);
+}
+
 void show_run(cairo_t* cr, const std::string& utf8, const ShapedRun& run, const CairoRun& g) {
   uint32_t first = g.flags ? run.glyphs.back().cluster : run.glyphs.front().cluster;
   if (g.clusters_ok && !g.clusters.empty()) {
@@ -170,8 +185,7 @@ void paint_runs(cairo_t* cr, const ShapedText& text, const std::vector<CairoRun>
     cairo_save(cr);
     cairo_new_path(cr);
     for (std::size_t r = 0; r < runs.size(); ++r) {
-      cairo_set_font_face(cr, text.runs[r].font->cairo_face());
-      cairo_set_font_size(cr, size_mm);
+      use_font(cr, *text.runs[r].font, size_mm);
       cairo_glyph_path(cr, runs[r].glyphs.data(), static_cast<int>(runs[r].glyphs.size()));
     }
     set_colour(cr, paint.halo_colour);
@@ -182,8 +196,7 @@ void paint_runs(cairo_t* cr, const ShapedText& text, const std::vector<CairoRun>
   }
   set_colour(cr, paint.colour);
   for (std::size_t r = 0; r < runs.size(); ++r) {
-    cairo_set_font_face(cr, text.runs[r].font->cairo_face());
-    cairo_set_font_size(cr, size_mm);
+    use_font(cr, *text.runs[r].font, size_mm);
     show_run(cr, text.utf8, text.runs[r], runs[r]);
   }
 }
@@ -254,8 +267,7 @@ void draw_placed_glyphs(cairo_t* cr, const ShapedText& text, const std::vector<P
       cairo_save(cr);
       cairo_translate(cr, pg.origin_mm.x, pg.origin_mm.y);
       cairo_rotate(cr, pg.angle_rad);
-      cairo_set_font_face(cr, run.font->cairo_face());
-      cairo_set_font_size(cr, size_mm);
+      use_font(cr, *run.font, size_mm);
       cairo_glyph_t cg{g.glyph_id, 0, 0};
       if (pass == 0) {
         cairo_new_path(cr);
