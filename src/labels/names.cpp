@@ -147,7 +147,9 @@ std::vector<Candidate> line_names(text::FontCache& fonts, const style::LabelStyl
   // offset 0: centred on the line; otherwise the text sits that far above it.
   const double shift =
       s.offset_mm == 0 ? -(t->ascent_mm - t->descent_mm) / 2 : s.offset_mm + t->descent_mm;
-  const double max_bend_deg = 25;  // common practice: no glyph pair across a sharp bend
+  // The sharpest turn allowed between the baselines of two neighbouring glyphs (our limit): more
+  // fans the letters apart on the outside of the bend and crowds them on the inside.
+  const double max_bend_deg = 20;
 
   std::vector<double> centres;
   if (s.repeat_mm > 0) {

@@ -90,6 +90,7 @@ ShapedText shape(FontCache& fonts, const FontKey& key, double size_pt, std::stri
       ShapedGlyph sg;
       sg.glyph_id = info[g].codepoint;
       sg.cluster = info[g].cluster;
+      sg.pen_mm = pen;
       sg.x_mm = pen + pos[g].x_offset * k;
       sg.y_mm = -pos[g].y_offset * k;
       sg.advance_mm = pos[g].x_advance * k;
@@ -213,47 +214,6 @@ void draw_text(cairo_t* cr, const ShapedText& text, Point origin_mm, double angl
   for (const auto& run : text.runs) runs.push_back(cairo_run(run, 0, 0));
   paint_runs(cr, text, runs, paint);
   cairo_restore(cr);
-}
-
-std::vector<PlacedGlyph> layout_on_path(const ShapedText& text, const Polyline& path,
-                                        double start_mm, double max_bend_deg,
-                                        double baseline_shift_mm) {
-  std::vector<PlacedGlyph> out;
-  if (path.size() < 2) return out;
-  std::vector<double> along(path.size(), 0);
-  for (std::size_t i = 1; i < path.size(); ++i)
-    along[i] = along[i - 1] + distance(path[i - 1], path[i]);
-  std::size_t seg = 0;
-  double prev_angle = 0;
-  bool have_prev = false;
-  for (std::size_t r = 0; r < text.runs.size(); ++r) {
-    const auto& run = text.runs[r];
-    for (std::size_t g = 0; g < run.glyphs.size(); ++g) {
-      const auto& gl = run.glyphs[g];
-      double mid = start_mm + gl.x_mm + gl.advance_mm / 2;
-      if (mid < 0 || mid > along.back()) return {};
-      while (seg + 2 < path.size() && along[seg + 1] < mid) ++seg;
-      while (seg > 0 && along[seg] > mid) --seg;
-      Point a = path[seg], b = path[seg + 1];
-      double len = along[seg + 1] - along[seg];
-      if (len <= 0) return {};
-      Point dir = (b - a) * (1.0 / len);
-      Point centre = a + dir * (mid - along[seg]);
-      double angle = std::atan2(dir.y, dir.x);
-      if (have_prev) {
-        double bend = std::remainder(angle - prev_angle, 2 * kPi);
-        if (std::abs(bend) > max_bend_deg * kDegToRad) return {};
-      }
-      prev_angle = angle;
-      have_prev = true;
-      // Normal pointing to the glyph's "up" (negative y in the glyph's frame).
-      Point up{dir.y, -dir.x};
-      Point origin = centre - dir * (gl.advance_mm / 2) + up * baseline_shift_mm;
-      origin = origin + up * (-gl.y_mm);
-      out.push_back({r, g, origin, angle});
-    }
-  }
-  return out;
 }
 
 void draw_placed_glyphs(cairo_t* cr, const ShapedText& text, const std::vector<PlacedGlyph>& glyphs,

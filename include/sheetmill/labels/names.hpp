@@ -3,9 +3,11 @@
 //
 // Points: horizontal text in several positions around the symbol, in order of preference
 // (right, upper right, lower right, left, above, below), each a cost step apart.
-// Lines: text curved along the line glyph by glyph (text::layout_on_path), turned to read
+// Lines: text curved along the line glyph by glyph (text::layout_on_path: each advance a chord
+// of the smoothed line, so letters and word spaces keep their shaped spacing), turned to read
 // upright, at intervals of LabelStyle::repeat_mm (once, at the middle, when 0), shifted along the
-// line to avoid sharp bends; never past the line's end. Footprints are per-glyph boxes.
+// line to avoid bends sharper than 20 degrees between neighbouring glyphs; never past the line's
+// end. Footprints are per-glyph boxes.
 // Areas: at the pole of inaccessibility (Garcia-Castellanos and Lombardo 2007, "Poles of
 // inaccessibility: a calculation algorithm for the remotest places on Earth", Scottish
 // Geographical Journal 123(3)), only where the whole text box stays inside the area; with
