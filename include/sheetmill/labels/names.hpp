@@ -35,6 +35,15 @@ std::string expand_template(const std::string& text_template,
                             const std::function<const std::string*(const std::string&)>& value,
                             bool upper_case = false);
 
+// A field's value as a label prints it: rounded to `decimals` places when it reads as a number
+// (808.65380859375 with 0 gives "809"; -0.2 gives "0", never "-0"), otherwise unchanged.
+std::string format_field(const std::string& value, int decimals);
+
+// The label text of a feature: the style's template filled from `value`, numeric fields rounded
+// as the style's `decimals` say, in capitals when it asks.
+std::string label_text(const style::LabelStyle& style,
+                       const std::function<const std::string*(const std::string&)>& value);
+
 std::optional<Candidate> point_name(text::FontCache& fonts, const style::LabelStyle& style,
                                     const std::string& text, Point anchor_mm,
                                     double symbol_radius_mm, const std::string& layer);
