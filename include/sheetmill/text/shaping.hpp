@@ -41,8 +41,14 @@ struct ShapedText {
   bool empty() const { return runs.empty(); }
 };
 
+// True when `s` is well-formed UTF-8 (RFC 3629: shortest forms, no surrogates, <= U+10FFFF).
+bool is_valid_utf8(std::string_view s);
+
 // Shapes `utf8` at `size_pt` with `key` and its fallbacks. `letter_spacing_em` adds space after
-// every glyph but the last. Direction and script are detected by HarfBuzz from the text.
+// every glyph but the last. The text is split into runs of one face and one direction by the
+// Unicode Bidirectional Algorithm (GNU FriBidi) and the runs are stored in visual order, each
+// shaped in its direction (script detected by HarfBuzz), so right-to-left and mixed names read
+// correctly. Ill-formed UTF-8 is shaped with U+FFFD in place of each bad sequence.
 ShapedText shape(FontCache& fonts, const FontKey& key, double size_pt, std::string_view utf8,
                  double letter_spacing_em = 0);
 
