@@ -43,23 +43,46 @@ double gap_between(const Box& a, const Box& b) {
 }
 }  // namespace
 
-std::vector<PdfWord> join_letters(const std::vector<PdfWord>& words, double max_gap_em) {
-  std::vector<PdfWord> out;
-  Box last;  // the previous piece's own box (not the joined word's)
-  for (const PdfWord& w : words) {
+std::vector<std::size_t> letter_groups(const std::vector<PdfWord>& words, double max_gap_em) {
+  std::vector<std::size_t> group(words.size(), 0);
+  for (std::size_t i = 1; i < words.size(); ++i) {
+    const Box& last = words[i - 1].box_pt;
+    const Box& w = words[i].box_pt;
     // A letter's size across the line is the smaller side of its box (for text at any angle
     // but the diagonals, where it is larger, which only loosens the test for real gaps).
-    const double em = std::max(std::min(last.width(), last.height()),
-                               std::min(w.box_pt.width(), w.box_pt.height()));
-    if (!out.empty() && gap_between(last, w.box_pt) < max_gap_em * em) {
+    const double em =
+        std::max(std::min(last.width(), last.height()), std::min(w.width(), w.height()));
+    group[i] = gap_between(last, w) < max_gap_em * em ? group[i - 1] : group[i - 1] + 1;
+  }
+  return group;
+}
+
+std::vector<PdfWord> join_letters(const std::vector<PdfWord>& words, double max_gap_em) {
+  const std::vector<std::size_t> group = letter_groups(words, max_gap_em);
+  std::vector<PdfWord> out;
+  for (std::size_t i = 0; i < words.size(); ++i) {
+    const PdfWord& w = words[i];
+    if (i > 0 && group[i] == group[i - 1]) {
       out.back().text += w.text;
       out.back().box_pt.add(Point{w.box_pt.min_x, w.box_pt.min_y});
       out.back().box_pt.add(Point{w.box_pt.max_x, w.box_pt.max_y});
     } else {
       out.push_back(w);
     }
-    last = w.box_pt;
   }
+  return out;
+}
+
+std::vector<std::pair<PdfWord, PdfWord>> overlapping_words(const std::vector<PdfWord>& words,
+                                                           double shrink_pt) {
+  const std::vector<std::size_t> group = letter_groups(words);
+  std::vector<std::pair<PdfWord, PdfWord>> out;
+  for (std::size_t i = 0; i < words.size(); ++i)
+    for (std::size_t j = i + 1; j < words.size(); ++j) {
+      if (group[i] == group[j]) continue;
+      if (words[i].box_pt.expanded(-shrink_pt).intersects(words[j].box_pt.expanded(-shrink_pt)))
+        out.push_back({words[i], words[j]});
+    }
   return out;
 }
 

@@ -28,5 +28,14 @@ std::vector<PdfWord> pdf_words(const std::filesystem::path& pdf, bool content_or
 // 0.3 em).
 // Words are kept as poppler built them otherwise.
 std::vector<PdfWord> join_letters(const std::vector<PdfWord>& words, double max_gap_em = 0.12);
+// The word each piece belongs to under the same rule: pieces with one number form one word.
+std::vector<std::size_t> letter_groups(const std::vector<PdfWord>& words, double max_gap_em = 0.12);
+
+// Pairs of words (pieces of different words, in content order as pdf_words(pdf, true) gives
+// them) whose boxes, each shrunk by `shrink_pt` on every side, overlap: two words printed over
+// each other. The shrink absorbs boxes that only touch (poppler's boxes are the fonts' boxes,
+// taller than the ink).
+std::vector<std::pair<PdfWord, PdfWord>> overlapping_words(const std::vector<PdfWord>& words,
+                                                           double shrink_pt = 0.25);
 
 }  // namespace sheetmill::test
