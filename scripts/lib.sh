@@ -8,7 +8,7 @@ BUILD_DIR="${SHEETMILL_BUILD_DIR:-$SHEETMILL_ROOT/build}"
 SHEETMILL_PACKAGES=(
   build-essential cmake pkg-config
   libgdal-dev gdal-bin libproj-dev proj-bin proj-data
-  libcairo2-dev libharfbuzz-dev libfreetype-dev libfontconfig-dev
+  libcairo2-dev libharfbuzz-dev libfreetype-dev libfontconfig-dev libfribidi-dev
   libyaml-cpp-dev libfmt-dev libhwy-dev libqpdf-dev libcli11-dev catch2 libpng-dev
   fonts-dejavu-core fonts-noto-core poppler-utils qpdf python3
   python3-yaml python3-jsonschema

@@ -181,6 +181,8 @@ ContourLabels contour_label_candidates(const std::vector<ContourLine>& lines,
     for (const auto& [slot, on_ladder] : slots_on(path, ladder, spacing, span / 2)) {
       labels::Candidate cand;
       cand.layer = kContourLabelLayer;
+      cand.text = value;
+      cand.anchor_mm = path.at(slot);
       cand.priority = ls.priority;
       cand.may_drop = true;
       std::vector<LabelGeometry> geom;
@@ -274,6 +276,8 @@ std::vector<labels::Candidate> spot_label_candidates(const std::vector<SpotHeigh
                         {at.x - w / 2, at.y + off + st->ascent_mm}};
     labels::Candidate cand;
     cand.layer = kSpotHeightLayer;
+    cand.text = value;
+    cand.anchor_mm = at;
     cand.priority = ls.priority;
     cand.may_drop = ls.may_drop;
     for (int k = 0; k < 4; ++k) {

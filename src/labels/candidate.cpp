@@ -3,6 +3,8 @@
 #include <algorithm>
 #include <numeric>
 
+#include "sheetmill/core/log.hpp"
+
 namespace sheetmill::labels {
 
 namespace {
@@ -39,6 +41,8 @@ std::map<std::string, LayerCount> place(std::vector<Candidate>& candidates,
       ++counts[c.layer].placed;
     } else {
       ++counts[c.layer].dropped;
+      log::debug("label dropped: layer {}, \"{}\" at {:.1f}, {:.1f} mm from the page's top left",
+                 c.layer, c.text, c.anchor_mm.x, c.anchor_mm.y);
     }
   }
   return counts;

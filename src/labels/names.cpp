@@ -29,9 +29,12 @@ std::shared_ptr<const text::ShapedText> shaped(text::FontCache& fonts, const sty
       text::shape(fonts, s.font, s.size_pt, t, s.letter_spacing_em + extra_em));
 }
 
-Candidate base(const style::LabelStyle& s, const std::string& layer) {
+Candidate base(const style::LabelStyle& s, const std::string& layer, const std::string& text,
+               Point anchor_mm) {
   Candidate c;
   c.layer = layer;
+  c.text = text;
+  c.anchor_mm = anchor_mm;
   c.priority = s.priority;
   c.may_drop = s.may_drop;
   return c;
@@ -127,7 +130,7 @@ std::optional<Candidate> point_name(text::FontCache& fonts, const style::LabelSt
   const Point origins[] = {{a.x + r, a.y + mid},         {a.x + d, a.y - d - des},
                            {a.x + d, a.y + d + asc},     {a.x - r - w, a.y + mid},
                            {a.x - w / 2, a.y - r - des}, {a.x - w / 2, a.y + r + asc}};
-  Candidate c = base(s, layer);
+  Candidate c = base(s, layer, text, a);
   double cost = 0;
   for (const Point& o : origins) c.placements.push_back(horizontal(t, paint, o, cost++));
   return c;
@@ -147,7 +150,9 @@ std::vector<Candidate> line_names(text::FontCache& fonts, const style::LabelStyl
   // offset 0: centred on the line; otherwise the text sits that far above it.
   const double shift =
       s.offset_mm == 0 ? -(t->ascent_mm - t->descent_mm) / 2 : s.offset_mm + t->descent_mm;
-  const double max_bend_deg = 25;  // common practice: no glyph pair across a sharp bend
+  // The sharpest turn allowed between the baselines of two neighbouring glyphs (our limit): more
+  // fans the letters apart on the outside of the bend and crowds them on the inside.
+  const double max_bend_deg = 20;
 
   std::vector<double> centres;
   if (s.repeat_mm > 0) {
@@ -158,7 +163,7 @@ std::vector<Candidate> line_names(text::FontCache& fonts, const style::LabelStyl
   }
   const double slide = s.repeat_mm > 0 ? std::min(s.repeat_mm, len) / 2 : len / 2;
   for (double centre : centres) {
-    Candidate c = base(s, layer);
+    Candidate c = base(s, layer, text, point_along(path, centre));
     // Alternatives slide along the line from the preferred centre, alternately ahead and behind.
     const double step = std::max(1.0, w / 4);
     for (int k = 0; k <= 2 * static_cast<int>(slide / step); ++k) {
@@ -211,7 +216,7 @@ std::optional<Candidate> area_name(text::FontCache& fonts, const style::LabelSty
   }
   const text::TextPaint paint = paint_of(s);
   const double w = t->width_mm, asc = t->ascent_mm, des = t->descent_mm;
-  Candidate c = base(s, layer);
+  Candidate c = base(s, layer, text, pole.at);
   // Centred on the pole; then nudged up and down by a line height.
   double cost = 0;
   for (double dy : {0.0, -t->height_mm(), t->height_mm()}) {

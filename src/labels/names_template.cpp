@@ -1,5 +1,9 @@
 // Label text templates: "{name} {ele} m".
+#include <fmt/format.h>
+
 #include <cctype>
+#include <charconv>
+#include <cmath>
 
 #include "sheetmill/labels/names.hpp"
 
@@ -42,6 +46,39 @@ std::string expand_template(const std::string& t,
     for (char& c : out)
       if (c >= 'a' && c <= 'z') c = static_cast<char>(c - 'a' + 'A');
   return out;
+}
+
+std::string format_field(const std::string& value, int decimals) {
+  std::size_t b = 0, e = value.size();
+  while (b < e && std::isspace(static_cast<unsigned char>(value[b]))) ++b;
+  while (e > b && std::isspace(static_cast<unsigned char>(value[e - 1]))) --e;
+  if (b == e) return value;
+  double v = 0;
+  const char* first = value.data() + b;
+  const char* last = value.data() + e;
+  if (*first == '+') ++first;  // from_chars takes no plus sign
+  auto [end, ec] = std::from_chars(first, last, v);
+  if (ec != std::errc() || end != last || !std::isfinite(v)) return value;
+  std::string out = fmt::format("{:.{}f}", v, decimals);
+  // A value that rounds to zero prints without a sign.
+  if (out.front() == '-' && out.find_first_not_of("-0.") == std::string::npos) out.erase(0, 1);
+  return out;
+}
+
+std::string label_text(const style::LabelStyle& style,
+                       const std::function<const std::string*(const std::string&)>& value) {
+  if (style.decimals.empty()) return expand_template(style.text_template, value, style.upper_case);
+  std::string formatted;
+  return expand_template(
+      style.text_template,
+      [&](const std::string& field) -> const std::string* {
+        const std::string* v = value(field);
+        auto d = style.decimals.find(field);
+        if (!v || d == style.decimals.end()) return v;
+        formatted = format_field(*v, d->second);
+        return &formatted;
+      },
+      style.upper_case);
 }
 
 }  // namespace sheetmill::labels

@@ -14,6 +14,7 @@
 #include "sheetmill/features/reader.hpp"
 #include "sheetmill/features/simplify.hpp"
 #include "sheetmill/labels/names.hpp"
+#include "sheetmill/text/shaping.hpp"
 
 namespace sheetmill::render {
 
@@ -168,9 +169,8 @@ FeatureLayersResult prepare_feature_layers(const project::Project& project,
                                                      : nullptr;
       std::string name;
       if (label) {
-        name = labels::expand_template(
-            label->text_template, [&](const std::string& k) { return f.value(field_index(k)); },
-            label->upper_case);
+        name = labels::label_text(*label,
+                                  [&](const std::string& k) { return f.value(field_index(k)); });
       }
 
       for (const Point& g : f.points) {

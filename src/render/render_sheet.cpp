@@ -92,6 +92,8 @@ RenderReport render_sheet(const project::Project& project, const style::Style& s
   text::CollisionIndex index(Box::of(0, 0, layout.page_w_mm, layout.page_h_mm));
   index.set_bounds(frame.page_box_mm());
   index.insert_all(features.obstacles);
+  for (const Box& b : sheet::grid_labels_in_frame(layout, style, fonts))
+    index.insert(text::box_quad(b));
   std::vector<labels::Candidate> candidates = std::move(features.name_candidates);
   const std::size_t first_contour_label = candidates.size();
   for (auto& c : sheet_contours.labels) candidates.push_back(std::move(c));

@@ -64,8 +64,11 @@ bool inside_ring(const std::vector<Point>& ring, Point p) {
   return in;
 }
 
-void draw_graticule(cairo_t* cr, const Layout& L, const style::Style& style,
-                    text::FontCache& fonts) {
+void draw_graticule(cairo_t* cr, const Layout& L, const style::Style& style, text::FontCache& fonts,
+                    std::vector<Box>* label_boxes) {
+  auto keep = [&](const Box& b) {
+    if (label_boxes) label_boxes->push_back(b);
+  };
   const auto& gs = style.grid;
   SheetCrs crs = SheetCrs::resolve(L.crs_definition.empty() ? L.frame.crs_wkt : L.crs_definition);
   std::vector<Point> ground = dense_neatline(L);
@@ -169,16 +172,17 @@ void draw_graticule(cairo_t* cr, const Layout& L, const style::Style& style,
     std::string txt = format_dms(c.value_deg, kind, res);
     switch (side) {
       case Side::top:
-        draw_label(cr, fonts, ls, txt, c.page + Point{0, 0.4}, HAlign::centre, VAlign::top);
+        keep(draw_label(cr, fonts, ls, txt, c.page + Point{0, 0.4}, HAlign::centre, VAlign::top));
         break;
       case Side::bottom:
-        draw_label(cr, fonts, ls, txt, c.page - Point{0, 0.4}, HAlign::centre, VAlign::bottom);
+        keep(
+            draw_label(cr, fonts, ls, txt, c.page - Point{0, 0.4}, HAlign::centre, VAlign::bottom));
         break;
       case Side::left:
-        draw_label(cr, fonts, ls, txt, c.page + Point{0.5, 0}, HAlign::left, VAlign::middle);
+        keep(draw_label(cr, fonts, ls, txt, c.page + Point{0.5, 0}, HAlign::left, VAlign::middle));
         break;
       case Side::right:
-        draw_label(cr, fonts, ls, txt, c.page - Point{0.5, 0}, HAlign::right, VAlign::middle);
+        keep(draw_label(cr, fonts, ls, txt, c.page - Point{0.5, 0}, HAlign::right, VAlign::middle));
         break;
     }
   }
@@ -195,16 +199,20 @@ void draw_graticule(cairo_t* cr, const Layout& L, const style::Style& style,
     double x = left ? nearest.x + gap : nearest.x - gap;
     double line_h = ls.size_pt * kMmPerPt * 1.2;
     double y0 = top ? nearest.y + gap + line_h * 0.8 : nearest.y - gap - line_h * 1.25;
-    draw_label(cr, fonts, corner_style, format_dms(g.y, AngleKind::latitude, 1), {x, y0}, h,
-               VAlign::baseline);
-    draw_label(cr, fonts, corner_style, format_dms(g.x, AngleKind::longitude, 1), {x, y0 + line_h},
-               h, VAlign::baseline);
+    keep(draw_label(cr, fonts, corner_style, format_dms(g.y, AngleKind::latitude, 1), {x, y0}, h,
+                    VAlign::baseline));
+    keep(draw_label(cr, fonts, corner_style, format_dms(g.x, AngleKind::longitude, 1),
+                    {x, y0 + line_h}, h, VAlign::baseline));
   }
   cairo_restore(cr);
 }
 
 void draw_second_grid(cairo_t* cr, const Layout& L, const style::Style& style,
-                      text::FontCache& fonts, const std::string& crs_def, double interval_m) {
+                      text::FontCache& fonts, const std::string& crs_def, double interval_m,
+                      std::vector<Box>* label_boxes) {
+  auto keep = [&](const Box& b) {
+    if (label_boxes) label_boxes->push_back(b);
+  };
   const auto& stroke = style.grid.second_grid;
   Reprojector to2(L.crs_definition.empty() ? L.frame.crs_wkt : L.crs_definition, crs_def);
   std::vector<Point> ground = dense_neatline(L);
@@ -265,9 +273,9 @@ void draw_second_grid(cairo_t* cr, const Layout& L, const style::Style& style,
   cairo_stroke(cr);
   for (const auto& l : labels) {
     if (l.vertical)
-      draw_label(cr, fonts, ls, l.text, l.at + Point{0.6, 3}, HAlign::left, VAlign::top);
+      keep(draw_label(cr, fonts, ls, l.text, l.at + Point{0.6, 3}, HAlign::left, VAlign::top));
     else
-      draw_label(cr, fonts, ls, l.text, l.at + Point{3, -0.6}, HAlign::left, VAlign::bottom);
+      keep(draw_label(cr, fonts, ls, l.text, l.at + Point{3, -0.6}, HAlign::left, VAlign::bottom));
   }
   cairo_restore(cr);
 }

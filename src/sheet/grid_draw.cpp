@@ -2,6 +2,7 @@
 
 #include "sheet/graticule.hpp"
 #include "sheet/typeset.hpp"
+#include "sheetmill/core/handles.hpp"
 #include "sheetmill/core/units.hpp"
 #include "sheetmill/draw/line.hpp"
 #include "sheetmill/sheet/grid.hpp"
@@ -120,6 +121,22 @@ void draw_neatline_and_grid(cairo_t* cr, const Layout& L, const style::Style& st
 
   for (const auto& label : plan.labels) draw_grid_label(cr, fonts, gs, label, interval);
   cairo_restore(cr);
+}
+
+std::vector<Box> grid_labels_in_frame(const Layout& L, const style::Style& style,
+                                      text::FontCache& fonts, const GridOptions& options) {
+  // The very drawing code sets them, into a recording that is thrown away, so the boxes are
+  // the drawn labels' own.
+  CairoSurfacePtr scratch(cairo_recording_surface_create(CAIRO_CONTENT_COLOR_ALPHA, nullptr));
+  CairoPtr cr(cairo_create(scratch.get()));
+  std::vector<Box> boxes;
+  if (options.graticule) draw_graticule(cr.get(), L, style, fonts, &boxes);
+  if (options.second_grid_crs) {
+    double interval = options.second_interval_m;
+    draw_second_grid(cr.get(), L, style, fonts, *options.second_grid_crs, interval, &boxes);
+  }
+  std::erase_if(boxes, [&](const Box& b) { return !b.intersects(L.frame.page_box_mm()); });
+  return boxes;
 }
 
 }  // namespace sheetmill::sheet

@@ -62,10 +62,10 @@ FontSpec Reader::font(const ConfigNode& n, FontSpec f) const {
 LabelStyle Reader::label(const ConfigNode& n, LabelStyle l,
                          const std::vector<std::string>& extra_keys) const {
   if (!n.is_map()) n.fail_expected("a label style (a mapping)");
-  std::vector<std::string> keys = {"text",      "font",     "weight",       "slant",
-                                   "size",      "colour",   "halo",         "letter_spacing",
-                                   "place",     "priority", "repeat_every", "gap",
-                                   "droppable", "spread",   "capitals",     "based_on"};
+  std::vector<std::string> keys = {
+      "text",      "font",           "weight",   "slant",    "size",         "colour",
+      "halo",      "letter_spacing", "place",    "priority", "repeat_every", "gap",
+      "droppable", "spread",         "capitals", "based_on", "decimals"};
   keys.insert(keys.end(), extra_keys.begin(), extra_keys.end());
   n.expect_keys(keys);
   if (auto b = n.find("based_on")) {
@@ -124,6 +124,18 @@ LabelStyle Reader::label(const ConfigNode& n, LabelStyle l,
   if (auto d = n.find("droppable")) l.may_drop = d->as_bool();
   if (auto s = n.find("spread")) l.spread_in_area = s->as_bool();
   if (auto c = n.find("capitals")) l.upper_case = c->as_bool();
+  if (auto d = n.find("decimals")) {
+    if (!d->is_map())
+      d->fail_expected("a mapping of field names to decimals, such as {elevation_m: 0}");
+    for (const auto& [field, places] : d->entries()) {
+      const int v = places.as_int();
+      if (v < 0 || v > 6) places.fail_expected("a number of decimals from 0 to 6");
+      if (l.text_template.find("{" + field + "}") == std::string::npos)
+        places.fail("expected a field of this label's text \"" + l.text_template + "\", got \"" +
+                    field + "\"");
+      l.decimals[field] = v;
+    }
+  }
   return l;
 }
 

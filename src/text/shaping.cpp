@@ -6,64 +6,20 @@
 #include <cmath>
 
 #include "sheetmill/core/units.hpp"
+#include "text/itemise.hpp"
 
 namespace sheetmill::text {
 
-namespace {
-
-// Decodes one UTF-8 code point at s[i]; advances i. Invalid bytes decode as U+FFFD.
-char32_t next_codepoint(std::string_view s, std::size_t& i) {
-  auto c = static_cast<unsigned char>(s[i]);
-  int len = c < 0x80 ? 1 : (c >> 5) == 6 ? 2 : (c >> 4) == 14 ? 3 : (c >> 3) == 30 ? 4 : 0;
-  if (len == 0 || i + len > s.size()) {
-    ++i;
-    return 0xFFFD;
-  }
-  char32_t cp = len == 1 ? c : c & (0x7F >> len);
-  for (int k = 1; k < len; ++k) cp = (cp << 6) | (static_cast<unsigned char>(s[i + k]) & 0x3F);
-  i += len;
-  return cp;
+bool is_valid_utf8(std::string_view s) {
+  return detail::valid_utf8(s);
 }
-
-// Characters that take the font of their neighbours rather than forcing a fallback.
-bool is_neutral(char32_t cp) {
-  return cp == ' ' || cp == 0x00A0 || (cp >= 0x0300 && cp <= 0x036F) || cp == 0x200B ||
-         cp == 0x200C || cp == 0x200D;
-}
-
-struct Span {
-  const Font* font;
-  uint32_t begin, end;
-};
-
-// Splits the text into spans, each in the first face (primary, then fontconfig's fallbacks) that
-// has the code point's glyph.
-std::vector<Span> itemise(FontCache& fonts, const FontKey& key, std::string_view utf8) {
-  const Font& primary = fonts.primary(key);
-  std::vector<Span> spans;
-  std::size_t i = 0;
-  while (i < utf8.size()) {
-    std::size_t start = i;
-    char32_t cp = next_codepoint(utf8, i);
-    const Font* font = &primary;
-    if (!is_neutral(cp) && !primary.has_glyph(cp)) {
-      if (const Font* f = fonts.fallback_for(key, cp)) font = f;
-    }
-    if (!spans.empty() && (spans.back().font == font || is_neutral(cp))) {
-      spans.back().end = static_cast<uint32_t>(i);
-    } else {
-      spans.push_back({font, static_cast<uint32_t>(start), static_cast<uint32_t>(i)});
-    }
-  }
-  return spans;
-}
-
-}  // namespace
 
 ShapedText shape(FontCache& fonts, const FontKey& key, double size_pt, std::string_view utf8,
                  double letter_spacing_em) {
   ShapedText out;
-  out.utf8 = std::string(utf8);
+  // Ill-formed bytes become U+FFFD: HarfBuzz would shape them so, and cairo refuses a text
+  // that is not UTF-8 (callers that can name the source check first: is_valid_utf8).
+  out.utf8 = detail::sanitised_utf8(utf8);
   out.size_pt = size_pt;
   const double size_mm = size_pt * kMmPerPt;
   double pen = 0;
@@ -71,12 +27,15 @@ ShapedText shape(FontCache& fonts, const FontKey& key, double size_pt, std::stri
   out.ascent_mm = primary.ascender_em() * size_mm;
   out.descent_mm = primary.descender_em() * size_mm;
   HbBufferPtr buf(hb_buffer_create());
-  for (const Span& span : itemise(fonts, key, out.utf8)) {
+  // Spans come in visual order, each in one direction: HarfBuzz lays a right-to-left span's
+  // glyphs out left to right too, so the pen only ever moves right.
+  for (const detail::Span& span : detail::itemise(fonts, key, out.utf8)) {
     hb_buffer_clear_contents(buf.get());
     // The whole text is context; only the span is shaped, so clusters are offsets into utf8.
     hb_buffer_add_utf8(buf.get(), out.utf8.data(), static_cast<int>(out.utf8.size()), span.begin,
                        static_cast<int>(span.end - span.begin));
-    hb_buffer_guess_segment_properties(buf.get());
+    hb_buffer_set_direction(buf.get(), span.rtl ? HB_DIRECTION_RTL : HB_DIRECTION_LTR);
+    hb_buffer_guess_segment_properties(buf.get());  // the script (and language) of the span
     hb_shape(span.font->hb(), buf.get(), nullptr, 0);
     unsigned n = 0;
     hb_glyph_info_t* info = hb_buffer_get_glyph_infos(buf.get(), &n);
@@ -90,6 +49,7 @@ ShapedText shape(FontCache& fonts, const FontKey& key, double size_pt, std::stri
       ShapedGlyph sg;
       sg.glyph_id = info[g].codepoint;
       sg.cluster = info[g].cluster;
+      sg.pen_mm = pen;
       sg.x_mm = pen + pos[g].x_offset * k;
       sg.y_mm = -pos[g].y_offset * k;
       sg.advance_mm = pos[g].x_advance * k;
@@ -126,17 +86,19 @@ CairoRun cairo_run(const ShapedRun& run, double dx, double dy) {
   }
   const auto& gl = run.glyphs;
   if (gl.empty()) return cr;
-  bool backward = gl.size() > 1 && gl.front().cluster > gl.back().cluster;
+  // Clusters go through the text forwards; for a right-to-left run (clusters falling along the
+  // glyphs) cairo's BACKWARD flag maps them to the glyphs from the end.
+  const bool backward = gl.size() > 1 && gl.front().cluster > gl.back().cluster;
   if (backward) cr.flags = CAIRO_TEXT_CLUSTER_FLAG_BACKWARD;
+  const std::size_t n = gl.size();
+  auto glyph_at = [&](std::size_t k) -> const ShapedGlyph& { return gl[backward ? n - 1 - k : k]; };
   std::size_t i = 0;
-  while (i < gl.size()) {
+  while (i < n) {
     std::size_t j = i;
-    while (j < gl.size() && gl[j].cluster == gl[i].cluster) ++j;
-    uint32_t start = gl[i].cluster;
-    uint32_t next = run.byte_end;
-    if (!backward && j < gl.size()) next = gl[j].cluster;
-    if (backward && i > 0) next = gl[i - 1].cluster;
-    if (next <= start) {
+    while (j < n && glyph_at(j).cluster == glyph_at(i).cluster) ++j;
+    const uint32_t start = glyph_at(i).cluster;
+    const uint32_t next = j < n ? glyph_at(j).cluster : run.byte_end;
+    if (next <= start) {  // not monotonic (should not happen): glyphs only, no text
       cr.clusters_ok = false;
       break;
     }
@@ -150,8 +112,23 @@ void set_colour(cairo_t* cr, const Colour& c) {
   cairo_set_source_rgba(cr, c.r, c.g, c.b, c.a);
 }
 
+// One font set-up for the halo's path and the fill: the face at `size_mm`, no hinting and no
+// hinted metrics, so both come from the same unhinted outlines at the same positions whatever
+// the surface (recording in mm, PDF, image); see LoadedFont in font.cpp.
+void use_font(cairo_t* cr, const Font& font, double size_mm) {
+  static cairo_font_options_t* const options = [] {
+    cairo_font_options_t* o = cairo_font_options_create();
+    cairo_font_options_set_hint_style(o, CAIRO_HINT_STYLE_NONE);
+    cairo_font_options_set_hint_metrics(o, CAIRO_HINT_METRICS_OFF);
+    return o;
+  }();
+  cairo_set_font_face(cr, font.cairo_face());
+  cairo_set_font_size(cr, size_mm);
+  cairo_set_font_options(cr, options);
+}
+
 void show_run(cairo_t* cr, const std::string& utf8, const ShapedRun& run, const CairoRun& g) {
-  uint32_t first = g.flags ? run.glyphs.back().cluster : run.glyphs.front().cluster;
+  const uint32_t first = g.flags ? run.glyphs.back().cluster : run.glyphs.front().cluster;
   if (g.clusters_ok && !g.clusters.empty()) {
     int bytes = 0;
     for (const auto& c : g.clusters) bytes += c.num_bytes;
@@ -170,8 +147,7 @@ void paint_runs(cairo_t* cr, const ShapedText& text, const std::vector<CairoRun>
     cairo_save(cr);
     cairo_new_path(cr);
     for (std::size_t r = 0; r < runs.size(); ++r) {
-      cairo_set_font_face(cr, text.runs[r].font->cairo_face());
-      cairo_set_font_size(cr, size_mm);
+      use_font(cr, *text.runs[r].font, size_mm);
       cairo_glyph_path(cr, runs[r].glyphs.data(), static_cast<int>(runs[r].glyphs.size()));
     }
     set_colour(cr, paint.halo_colour);
@@ -182,8 +158,7 @@ void paint_runs(cairo_t* cr, const ShapedText& text, const std::vector<CairoRun>
   }
   set_colour(cr, paint.colour);
   for (std::size_t r = 0; r < runs.size(); ++r) {
-    cairo_set_font_face(cr, text.runs[r].font->cairo_face());
-    cairo_set_font_size(cr, size_mm);
+    use_font(cr, *text.runs[r].font, size_mm);
     show_run(cr, text.utf8, text.runs[r], runs[r]);
   }
 }
@@ -202,47 +177,6 @@ void draw_text(cairo_t* cr, const ShapedText& text, Point origin_mm, double angl
   cairo_restore(cr);
 }
 
-std::vector<PlacedGlyph> layout_on_path(const ShapedText& text, const Polyline& path,
-                                        double start_mm, double max_bend_deg,
-                                        double baseline_shift_mm) {
-  std::vector<PlacedGlyph> out;
-  if (path.size() < 2) return out;
-  std::vector<double> along(path.size(), 0);
-  for (std::size_t i = 1; i < path.size(); ++i)
-    along[i] = along[i - 1] + distance(path[i - 1], path[i]);
-  std::size_t seg = 0;
-  double prev_angle = 0;
-  bool have_prev = false;
-  for (std::size_t r = 0; r < text.runs.size(); ++r) {
-    const auto& run = text.runs[r];
-    for (std::size_t g = 0; g < run.glyphs.size(); ++g) {
-      const auto& gl = run.glyphs[g];
-      double mid = start_mm + gl.x_mm + gl.advance_mm / 2;
-      if (mid < 0 || mid > along.back()) return {};
-      while (seg + 2 < path.size() && along[seg + 1] < mid) ++seg;
-      while (seg > 0 && along[seg] > mid) --seg;
-      Point a = path[seg], b = path[seg + 1];
-      double len = along[seg + 1] - along[seg];
-      if (len <= 0) return {};
-      Point dir = (b - a) * (1.0 / len);
-      Point centre = a + dir * (mid - along[seg]);
-      double angle = std::atan2(dir.y, dir.x);
-      if (have_prev) {
-        double bend = std::remainder(angle - prev_angle, 2 * kPi);
-        if (std::abs(bend) > max_bend_deg * kDegToRad) return {};
-      }
-      prev_angle = angle;
-      have_prev = true;
-      // Normal pointing to the glyph's "up" (negative y in the glyph's frame).
-      Point up{dir.y, -dir.x};
-      Point origin = centre - dir * (gl.advance_mm / 2) + up * baseline_shift_mm;
-      origin = origin + up * (-gl.y_mm);
-      out.push_back({r, g, origin, angle});
-    }
-  }
-  return out;
-}
-
 void draw_placed_glyphs(cairo_t* cr, const ShapedText& text, const std::vector<PlacedGlyph>& glyphs,
                         const TextPaint& paint) {
   const double size_mm = text.size_pt * kMmPerPt;
@@ -254,8 +188,7 @@ void draw_placed_glyphs(cairo_t* cr, const ShapedText& text, const std::vector<P
       cairo_save(cr);
       cairo_translate(cr, pg.origin_mm.x, pg.origin_mm.y);
       cairo_rotate(cr, pg.angle_rad);
-      cairo_set_font_face(cr, run.font->cairo_face());
-      cairo_set_font_size(cr, size_mm);
+      use_font(cr, *run.font, size_mm);
       cairo_glyph_t cg{g.glyph_id, 0, 0};
       if (pass == 0) {
         cairo_new_path(cr);

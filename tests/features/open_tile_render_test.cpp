@@ -158,6 +158,17 @@ TEST_CASE("the open tile renders with the field style: layers drawn, names place
   geo.epsg = 27700;
   canvas.finish_pdf(tmp / "tile.pdf", geo, {});
 
+  // No two words on the tile's page overlap: every word poppler reads, in content order (the
+  // letters of a curved name, one string per glyph, count as one word).
+  {
+    const auto overlaps = test::overlapping_words(test::pdf_words(tmp / "tile.pdf", true));
+    for (const auto& [a, b] : overlaps)
+      UNSCOPED_INFO("'" << a.text << "' at " << a.box_mm().min_x << ", " << a.box_mm().min_y
+                        << " mm overlaps '" << b.text << "' at " << b.box_mm().min_x << ", "
+                        << b.box_mm().min_y << " mm");
+    CHECK(overlaps.empty());
+  }
+
   // The PDF shows the bottom layer too: poppler's raster of the page holds the wood fill
   // (#c3e3ad in the field style) over a good part of the tile's woods.
   {

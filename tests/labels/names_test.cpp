@@ -5,6 +5,7 @@
 
 #include <catch2/catch.hpp>
 #include <cmath>
+#include <map>
 
 #include "sheetmill/core/units.hpp"
 #include "sheetmill/text/shaping.hpp"
@@ -145,4 +146,32 @@ TEST_CASE("names in Devanagari shape through a fallback face", "[labels]") {
   REQUIRE(!t.empty());
   for (const auto& run : t.runs)
     for (const auto& g : run.glyphs) CHECK(g.glyph_id != 0);
+}
+
+TEST_CASE("numeric fields are rounded as the label style says", "[labels][decimals]") {
+  // Rounding to a fixed number of decimals, worked by hand (round half away from zero is not
+  // at stake: none of these values lies on a tie in binary).
+  CHECK(format_field("808.65380859375", 0) == "809");
+  CHECK(format_field("808.65380859375", 1) == "808.7");
+  CHECK(format_field(" 256.194 ", 2) == "256.19");
+  CHECK(format_field("+12.5e1", 0) == "125");
+  CHECK(format_field("-0.2", 0) == "0");  // never "-0"
+  CHECK(format_field("-3.46", 1) == "-3.5");
+  // Not numbers: printed as the data has them.
+  CHECK(format_field("S 12", 0) == "S 12");
+  CHECK(format_field("12a", 0) == "12a");
+  CHECK(format_field("", 0) == "");
+  CHECK(format_field("nan", 0) == "nan");
+
+  style::LabelStyle s = label();
+  s.text_template = "{name} {elevation_m}";
+  s.decimals["elevation_m"] = 0;
+  std::map<std::string, std::string> f{{"name", "Kestrel Top"}, {"elevation_m", "808.6538"}};
+  auto value = [&](const std::string& k) -> const std::string* {
+    auto it = f.find(k);
+    return it == f.end() ? nullptr : &it->second;
+  };
+  CHECK(label_text(s, value) == "Kestrel Top 809");
+  s.decimals.clear();
+  CHECK(label_text(s, value) == "Kestrel Top 808.6538");
 }

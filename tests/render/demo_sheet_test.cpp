@@ -377,3 +377,16 @@ TEST_CASE("a DEM in feet gives a sheet in feet", "[render]") {
   CHECK(txt.out.find("Heights in feet above the demo datum") != std::string::npos);
   CHECK(txt.out.find("Contour interval 6.096") == std::string::npos);
 }
+
+TEST_CASE("no two words on the demo sheet overlap", "[render][overlap]") {
+  // Every word on the page (map, grid and graticule values, collar), read back by poppler in
+  // content order; the letters of a curved name (one string per glyph) count as one word.
+  const auto words = test::pdf_words(demo_pdf(), true);
+  REQUIRE(words.size() > 300);
+  const auto overlaps = test::overlapping_words(words);
+  for (const auto& [a, b] : overlaps)
+    UNSCOPED_INFO("'" << a.text << "' at " << a.box_mm().min_x << ", " << a.box_mm().min_y
+                      << " mm overlaps '" << b.text << "' at " << b.box_mm().min_x << ", "
+                      << b.box_mm().min_y << " mm");
+  CHECK(overlaps.empty());
+}

@@ -23,6 +23,8 @@ struct Placement {
 
 struct Candidate {
   std::string layer;     // for the render log's per-layer counts
+  std::string text;      // what it says, for the log of dropped labels
+  Point anchor_mm;       // where it belongs on the page (the feature's point, line middle, ...)
   int priority = 50;     // higher first
   bool may_drop = true;  // false: placed at its best position even if it collides
   std::vector<Placement> placements;
@@ -35,7 +37,8 @@ struct LayerCount {
 };
 
 // Decides every candidate (stable by priority, then input order), inserting chosen footprints in
-// `index`. Returns placed and dropped counts per layer.
+// `index`. Returns placed and dropped counts per layer; each dropped label is logged at debug
+// level (--verbose) with its layer, text and page position.
 std::map<std::string, LayerCount> place(std::vector<Candidate>& candidates,
                                         text::CollisionIndex& index);
 

@@ -3,9 +3,11 @@
 //
 // Points: horizontal text in several positions around the symbol, in order of preference
 // (right, upper right, lower right, left, above, below), each a cost step apart.
-// Lines: text curved along the line glyph by glyph (text::layout_on_path), turned to read
+// Lines: text curved along the line glyph by glyph (text::layout_on_path: each advance a chord
+// of the smoothed line, so letters and word spaces keep their shaped spacing), turned to read
 // upright, at intervals of LabelStyle::repeat_mm (once, at the middle, when 0), shifted along the
-// line to avoid sharp bends; never past the line's end. Footprints are per-glyph boxes.
+// line to avoid bends sharper than 20 degrees between neighbouring glyphs; never past the line's
+// end. Footprints are per-glyph boxes.
 // Areas: at the pole of inaccessibility (Garcia-Castellanos and Lombardo 2007, "Poles of
 // inaccessibility: a calculation algorithm for the remotest places on Earth", Scottish
 // Geographical Journal 123(3)), only where the whole text box stays inside the area; with
@@ -32,6 +34,15 @@ std::vector<std::string> template_fields(const std::string& text_template);
 std::string expand_template(const std::string& text_template,
                             const std::function<const std::string*(const std::string&)>& value,
                             bool upper_case = false);
+
+// A field's value as a label prints it: rounded to `decimals` places when it reads as a number
+// (808.65380859375 with 0 gives "809"; -0.2 gives "0", never "-0"), otherwise unchanged.
+std::string format_field(const std::string& value, int decimals);
+
+// The label text of a feature: the style's template filled from `value`, numeric fields rounded
+// as the style's `decimals` say, in capitals when it asks.
+std::string label_text(const style::LabelStyle& style,
+                       const std::function<const std::string*(const std::string&)>& value);
 
 std::optional<Candidate> point_name(text::FontCache& fonts, const style::LabelStyle& style,
                                     const std::string& text, Point anchor_mm,

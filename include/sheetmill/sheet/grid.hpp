@@ -60,4 +60,10 @@ GridLabelText grid_label_text(double value_m, double interval_m, bool full, bool
 void draw_neatline_and_grid(cairo_t* cr, const Layout& layout, const style::Style& style,
                             text::FontCache& fonts, const GridOptions& options = {});
 
+// The boxes (page mm) of the labels draw_neatline_and_grid sets inside the map frame with the
+// same arguments: graticule values along the neatline, the corners' positions, second-grid
+// values. They go into the sheet's collision index first, so names and spot heights keep clear.
+std::vector<Box> grid_labels_in_frame(const Layout& layout, const style::Style& style,
+                                      text::FontCache& fonts, const GridOptions& options = {});
+
 }  // namespace sheetmill::sheet

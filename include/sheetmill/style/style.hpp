@@ -125,6 +125,9 @@ struct LabelStyle {
   bool may_drop = true;         // false: placed even when it collides (and reported)
   bool spread_in_area = false;  // areas: letter-space to fill the area (lakes, regions)
   bool upper_case = false;
+  // Numeric fields rounded to a number of decimals in the text ("decimals: {elevation_m: 0}");
+  // a field not named, or a value that is not a number, is printed as the data has it.
+  std::map<std::string, int> decimals;
 };
 
 struct Rule {

@@ -18,6 +18,7 @@ struct ShapedGlyph {
   uint32_t glyph_id = 0;
   double x_mm = 0;  // pen position + offset, from the run's baseline start
   double y_mm = 0;
+  double pen_mm = 0;  // pen position before this glyph (x_mm without the glyph's offset)
   double advance_mm = 0;
   uint32_t cluster = 0;  // byte offset into the source UTF-8
 };
@@ -40,8 +41,14 @@ struct ShapedText {
   bool empty() const { return runs.empty(); }
 };
 
+// True when `s` is well-formed UTF-8 (RFC 3629: shortest forms, no surrogates, <= U+10FFFF).
+bool is_valid_utf8(std::string_view s);
+
 // Shapes `utf8` at `size_pt` with `key` and its fallbacks. `letter_spacing_em` adds space after
-// every glyph but the last. Direction and script are detected by HarfBuzz from the text.
+// every glyph but the last. The text is split into runs of one face and one direction by the
+// Unicode Bidirectional Algorithm (GNU FriBidi) and the runs are stored in visual order, each
+// shaped in its direction (script detected by HarfBuzz), so right-to-left and mixed names read
+// correctly. Ill-formed UTF-8 is shaped with U+FFFD in place of each bad sequence.
 ShapedText shape(FontCache& fonts, const FontKey& key, double size_pt, std::string_view utf8,
                  double letter_spacing_em = 0);
 
@@ -66,12 +73,16 @@ struct PlacedGlyph {
   double angle_rad = 0;
 };
 
-// Places every glyph of `text` along `path_mm` (page millimetres), starting `start_mm` along it,
-// each glyph centred on the path at its midpoint and rotated to the local direction. Returns an
-// empty vector when the text runs past the end or a bend between neighbouring glyphs exceeds
-// `max_bend_deg`.
+// Places every glyph of `text` along `path_mm` (page millimetres), its baseline starting
+// `start_mm` along the path. The baseline is the path smoothed over about half an em (so a
+// stream's small wiggles do not crowd letters) and moved `baseline_shift_mm` to the left of the
+// path's direction (page up for a path running right). Glyphs are laid chord by chord: each
+// advance (with its letter spacing) is a straight chord whose ends lie on the baseline, and the
+// glyph is turned to that chord about the chord's middle, so every advance and word space is kept
+// exactly. Returns an empty vector when the text runs past either end, or when the turn between
+// the chords of two neighbouring glyphs exceeds `max_turn_deg` (the line bends too sharply).
 std::vector<PlacedGlyph> layout_on_path(const ShapedText& text, const Polyline& path_mm,
-                                        double start_mm, double max_bend_deg = 30,
+                                        double start_mm, double max_turn_deg = 30,
                                         double baseline_shift_mm = 0);
 
 void draw_placed_glyphs(cairo_t* cr, const ShapedText& text, const std::vector<PlacedGlyph>& glyphs,
