@@ -1,5 +1,5 @@
-// `sheetmill contours DEM OUT.gpkg --interval I [--base B] [--index-every N]`: contour lines
-// prepared for print, written to a GeoPackage with elevation, index, depression and
+// `sheetmill contours DEM OUT.gpkg --interval I [--base B] [--index-every N] [--dem-crs CRS]`:
+// contour lines prepared for print, written to a GeoPackage with elevation, index, depression and
 // supplementary fields. Thin: parses options and calls sheetmill::contours::contour_file().
 #include <memory>
 #include <string>
@@ -19,6 +19,7 @@ void add_contours_command(CLI::App& app, Action& action, const GlobalOptions&) {
     bool raw = false;
     bool labels = false;
     std::string units = "auto";
+    std::string dem_crs;
   };
   auto args = std::make_shared<Args>();
   args->params.interval_m = 0;  // 0: proposed from the scale and the relief
@@ -35,6 +36,9 @@ void add_contours_command(CLI::App& app, Action& action, const GlobalOptions&) {
                   "vertical unit), m, ft or us-ft")
       ->check(CLI::IsMember({"auto", "m", "ft", "us-ft"}))
       ->capture_default_str();
+  cmd->add_option("--dem-crs", args->dem_crs,
+                  "The DEM's CRS when the file states none (for example EPSG:4326); a CRS the "
+                  "file states wins");
   cmd->add_option("--index-every", args->params.index_every, "Every Nth line is an index contour")
       ->capture_default_str();
   cmd->add_option("--scale", args->params.scale_denominator,
@@ -56,13 +60,16 @@ void add_contours_command(CLI::App& app, Action& action, const GlobalOptions&) {
       contours::ContourFileOptions options;
       options.prepare = !args->raw;
       options.labels = args->labels;
+      if (!args->dem_crs.empty()) options.dem_crs = args->dem_crs;
       if (args->units == "m") options.unit_m = 1.0;
       if (args->units == "ft") options.unit_m = kMetresPerFoot;
       if (args->units == "us-ft") options.unit_m = kMetresPerUsSurveyFoot;
       auto r = contours::contour_file(args->dem, args->out, args->params, options);
-      log::info("contours: wrote {} ({} lines at {:g} {}, {} vertices, {:.1f} km, {} labels)",
-                args->out, r.lines, r.interval, r.unit.symbol, r.vertices, r.length_m / 1000,
-                r.labels);
+      log::info(
+          "contours: wrote {} ({} lines at {:g} {}, {} closed, {} vertices, {:.1f} km on the "
+          "ground, {} labels)",
+          args->out, r.lines, r.interval, r.unit.symbol, r.closed, r.vertices, r.length_m / 1000,
+          r.labels);
       return 0;
     };
   });

@@ -11,6 +11,7 @@
 #include "contours/orient.hpp"
 #include "sheetmill/contours/contour_labels.hpp"
 #include "sheetmill/contours/generate.hpp"
+#include "sheetmill/contours/ground_plane.hpp"
 #include "sheetmill/contours/prepare.hpp"
 #include "sheetmill/core/atomic_file.hpp"
 #include "sheetmill/core/caution.hpp"
@@ -229,7 +230,9 @@ ContourFileReport contour_file(const std::string& dem_path, const std::filesyste
   // Compressed GeoTIFF blocks are decoded on all cores (GDAL's multi-threaded decoding, read
   // when the dataset opens); a user's own setting wins.
   CPLConfigOptionSetter threads("GDAL_NUM_THREADS", "ALL_CPUS", true);
-  terrain::DemSource source(dem_path);
+  terrain::DemReadOptions read_options;
+  read_options.assumed_crs = options.dem_crs;
+  terrain::DemSource source(dem_path, read_options);
   if (options.labels && source.crs().IsGeographic()) {
     throw_input_error(dem_path,
                       "--labels needs a DEM in a projected CRS (labels are placed in mm at the "
@@ -260,13 +263,30 @@ ContourFileReport contour_file(const std::string& dem_path, const std::filesyste
   std::vector<ContourLine> lines;
   t0 = Clock::now();
   double t_prepare = 0;
+  ContourFileReport measured;
   try {
     lines = generate_raw(dem, params);
-    if (options.prepare) {
-      auto t1 = Clock::now();
-      prepare_for_print(lines, params, detail::DemSampler(dem).cell_m());
-      t_prepare = since(t1);
+    // Paper lengths are ground lengths: a grid not in ground metres is measured (and prepared)
+    // in a local plane; the written lines stay in the DEM's CRS.
+    std::optional<GroundPlane> plane = GroundPlane::for_grid(dem.grid);
+    auto t1 = Clock::now();
+    std::vector<ContourLine> in_plane;
+    if (plane) {
+      in_plane = options.prepare ? std::move(lines) : lines;
+      plane->to_plane(in_plane);
     }
+    std::vector<ContourLine>& metric = plane ? in_plane : lines;
+    if (options.prepare)
+      prepare_for_print(metric, params, plane ? plane->cell_m() : detail::DemSampler(dem).cell_m());
+    for (const auto& l : metric) {
+      measured.length_m += line_length(l);
+      measured.closed += l.closed;
+    }
+    if (plane && options.prepare) {
+      plane->from_plane(in_plane);
+      lines = std::move(in_plane);
+    }
+    t_prepare = since(t1);
   } catch (const Error& e) {
     if (e.kind() == Error::Kind::input && e.where().file.empty()) {
       SourceLocation where = e.where();
@@ -289,10 +309,9 @@ ContourFileReport contour_file(const std::string& dem_path, const std::filesyste
   report.labels = static_cast<long>(labels.size());
   report.interval = params.interval_m / unit_m;
   report.lines = static_cast<long>(lines.size());
-  for (const auto& l : lines) {
-    report.vertices += static_cast<long>(l.ground.size());
-    report.length_m += line_length(l);
-  }
+  report.closed = measured.closed;
+  report.length_m = measured.length_m;
+  for (const auto& l : lines) report.vertices += static_cast<long>(l.ground.size());
   return report;
 }
 

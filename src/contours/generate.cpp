@@ -46,7 +46,8 @@ void append_gentle_pieces(const ContourLine& line, const detail::DemSampler& dem
   piece.ground.clear();
   auto flush = [&] {
     ContourLine candidate = piece;
-    if (candidate.ground.size() >= 2 && line_length(candidate) >= min_len) out.push_back(candidate);
+    if (candidate.ground.size() >= 2 && dem.ground_length(candidate.ground, false) >= min_len)
+      out.push_back(candidate);
     piece.ground.clear();
   };
   for (std::size_t k = 0; k < count; ++k) {
