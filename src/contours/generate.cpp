@@ -98,19 +98,37 @@ std::pair<double, double> elevation_range(const terrain::Dem& dem) {
   return {lo, hi};
 }
 
+namespace {
+
+// Contour intervals in use on sheets in feet (common practice): 1, 2, 5, 10, 20, 25, 40, 50,
+// 100 ft and their larger companions; not the metric 2.5 x 10^k steps.
+constexpr double kFootIntervals[] = {1, 2, 5, 10, 20, 25, 40, 50, 80, 100, 200, 250, 500, 1000};
+
+bool is_foot(double unit_m) {
+  return std::abs(unit_m - kMetresPerFoot) < 1e-6 ||
+         std::abs(unit_m - kMetresPerUsSurveyFoot) < 1e-6;
+}
+
+}  // namespace
+
 double propose_interval_m(double scale_denominator, double relief_m, double unit_m) {
   double lo = scale_denominator / 5000, hi = scale_denominator / 2500;
   // A round number in the unit heights are shown in (a 20 ft interval, not 6.096 m).
   double ideal = std::clamp(relief_m / 40, lo, hi) / unit_m;
-  // Round to the nearest of 1, 2, 2.5, 5 x 10^k (in ratio, not difference).
+  // The nearest usual interval in ratio, not difference.
   double best = 1, best_err = std::numeric_limits<double>::infinity();
+  auto consider = [&](double v) {
+    double err = std::abs(std::log(v / ideal));
+    if (err < best_err) best = v, best_err = err;
+  };
+  if (is_foot(unit_m)) {
+    for (double v : kFootIntervals) consider(v);
+    return best * unit_m;
+  }
+  // Metres (or another unit): 1, 2, 2.5, 5 x 10^k.
   int k0 = static_cast<int>(std::floor(std::log10(ideal)));
   for (int k = k0 - 1; k <= k0 + 1; ++k) {
-    for (double m : {1.0, 2.0, 2.5, 5.0}) {
-      double v = m * std::pow(10.0, k);
-      double err = std::abs(std::log(v / ideal));
-      if (err < best_err) best = v, best_err = err;
-    }
+    for (double m : {1.0, 2.0, 2.5, 5.0}) consider(m * std::pow(10.0, k));
   }
   return best * unit_m;
 }
