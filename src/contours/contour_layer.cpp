@@ -8,6 +8,7 @@
 #include <cmath>
 
 #include "contours/dem_sampling.hpp"
+#include "contours/depression.hpp"
 #include "contours/orient.hpp"
 #include "sheetmill/contours/contour_labels.hpp"
 #include "sheetmill/contours/generate.hpp"
@@ -202,7 +203,7 @@ std::vector<ContourLine> read_layer(const std::string& path, const std::string& 
     l.index = level_number(z, params) % params.index_every == 0;
     if (sampler) {
       detail::orient_uphill_left(l, *sampler);
-      if (l.closed) l.depression = l.uphill_known && detail::signed_area(l.ground) < 0;
+      detail::classify_loop(l, *dem, *sampler);
     } else {
       l.uphill_known = false;
     }

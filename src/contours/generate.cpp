@@ -7,6 +7,7 @@
 #include <thread>
 
 #include "contours/dem_sampling.hpp"
+#include "contours/depression.hpp"
 #include "contours/orient.hpp"
 #include "sheetmill/contours/gdal_contours.hpp"
 #include "sheetmill/contours/prepare.hpp"
@@ -171,7 +172,7 @@ std::vector<ContourLine> generate_raw(const terrain::Dem& dem, const ContourPara
       }
       if (line.ground.size() < 2) continue;
       detail::orient_uphill_left(line, sampler);
-      if (line.closed) line.depression = line.uphill_known && detail::signed_area(line.ground) < 0;
+      detail::classify_loop(line, dem, sampler);
     }
   };
   {

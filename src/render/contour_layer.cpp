@@ -6,18 +6,33 @@
 #include "sheetmill/contours/contour_labels.hpp"
 #include "sheetmill/contours/contour_layer.hpp"
 #include "sheetmill/contours/generate.hpp"
+#include "sheetmill/contours/ground_plane.hpp"
 #include "sheetmill/contours/spot_heights.hpp"
 #include "sheetmill/contours/water_clip.hpp"
+#include "sheetmill/core/error.hpp"
 #include "sheetmill/core/log.hpp"
+#include "sheetmill/terrain/dem_source.hpp"
 
 namespace sheetmill::render {
 
 namespace {
 
-// Contours come from a grid at about the DEM's own resolution: finer adds nothing but vertices,
-// and a line 0.1 mm apart on paper is the finest a pen can separate.
+// The DEM's cell on the ground: a Web Mercator cell of 3710 m is about 2434 m at 49 degrees, so
+// its CRS units would make the contour grid a third too coarse. Rotated grids (which DemSource
+// does not read) keep terrain's measure.
+double native_ground_cell_m(const project::Project& project) {
+  const terrain::DemReadOptions options = dem_options(project);
+  try {
+    return contours::ground_cell_m(terrain::DemSource(project.elevation.dem, options).grid());
+  } catch (const Error&) {
+    return terrain::native_cell_m(project.elevation.dem, options);
+  }
+}
+
+// Contours come from a grid at about the DEM's own resolution on the ground: finer adds nothing
+// but vertices, and a line 0.1 mm apart on paper is the finest a pen can separate.
 RasterGrid contour_grid(const project::Project& project, const MapFrame& frame) {
-  double native = terrain::native_cell_m(project.elevation.dem, dem_options(project));
+  double native = native_ground_cell_m(project);
   double finest = 0.1 * frame.metres_per_mm();
   double cell = std::max(native, finest);
   double dpi = kMmPerInch / (cell * frame.mm_per_metre());
