@@ -94,9 +94,8 @@ SheetContours build_contours(const project::Project& project, const style::Style
   out.labels = contours::label_candidates(out.lines, out.dem, frame, cs, fonts, out.unit.metres);
   out.spots = contours::find_summits(out.dem, cs.spot_min_prominence_m);
   // The window reaches a few cells past the frame: a summit there is off the sheet.
-  std::erase_if(out.spots, [&](const contours::SpotHeight& s) {
-    return !frame.ground.contains(s.ground);
-  });
+  std::erase_if(out.spots,
+                [&](const contours::SpotHeight& s) { return !frame.ground.contains(s.ground); });
   for (auto& c : contours::spot_label_candidates(out.spots, frame, cs, fonts, out.unit.metres)) {
     out.labels.push_back(std::move(c));
   }

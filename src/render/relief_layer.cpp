@@ -13,6 +13,7 @@ terrain::DemReadOptions dem_options(const project::Project& project) {
   terrain::DemReadOptions o;
   o.assumed_crs = project.elevation.crs;
   o.vertical_unit = project.elevation.vertical_unit;
+  o.warn_coverage = false;  // render_sheet reports the frame's coverage once
   return o;
 }
 
@@ -52,15 +53,7 @@ bool draw_relief(cairo_t* cr, const project::Project& project, const style::Styl
   const int margin = 2;
   RasterGrid grid = grid_for_frame(frame, dpi, margin);
   terrain::Dem dem = terrain::read_dem_window(project.elevation.dem, grid, dem_options(project));
-  if (dem.valid_count() == 0) {
-    log::warn("{}: no elevation data under the map frame; the sheet has no relief",
-              project.elevation.dem);
-    return false;
-  }
-  if (dem.valid_count() < dem.z.size() * 95 / 100) {
-    log::warn("{}: elevation data covers only part of the map frame; relief is missing elsewhere",
-              project.elevation.dem);
-  }
+  if (dem.valid_count() == 0) return false;  // render_sheet has said so
   terrain::ReliefParams params;
   params.shade = rs.hillshade;
   params.shading.method = shade_method(rs.method);
