@@ -2,6 +2,7 @@
 // contour lines prepared for print, written to a GeoPackage with elevation, index, depression and
 // supplementary fields. Thin: parses options and calls sheetmill::contours::contour_file().
 #include <memory>
+#include <optional>
 #include <string>
 
 #include "app/commands.hpp"
@@ -20,6 +21,7 @@ void add_contours_command(CLI::App& app, Action& action, const GlobalOptions&) {
     bool labels = false;
     std::string units = "auto";
     std::string dem_crs;
+    std::optional<double> sea_level;
   };
   auto args = std::make_shared<Args>();
   args->params.interval_m = 0;  // 0: proposed from the scale and the relief
@@ -39,6 +41,9 @@ void add_contours_command(CLI::App& app, Action& action, const GlobalOptions&) {
   cmd->add_option("--dem-crs", args->dem_crs,
                   "The DEM's CRS when the file states none (for example EPSG:4326); a CRS the "
                   "file states wins");
+  cmd->add_option("--sea-level", args->sea_level,
+                  "Sea (or water surface) level in --units: lines below it are depth contours "
+                  "(field depth), the line at it the coastline (field coastline)");
   cmd->add_option("--index-every", args->params.index_every, "Every Nth line is an index contour")
       ->capture_default_str();
   cmd->add_option("--scale", args->params.scale_denominator,
@@ -61,6 +66,7 @@ void add_contours_command(CLI::App& app, Action& action, const GlobalOptions&) {
       options.prepare = !args->raw;
       options.labels = args->labels;
       if (!args->dem_crs.empty()) options.dem_crs = args->dem_crs;
+      args->params.sea_level_m = args->sea_level;
       if (args->units == "m") options.unit_m = 1.0;
       if (args->units == "ft") options.unit_m = kMetresPerFoot;
       if (args->units == "us-ft") options.unit_m = kMetresPerUsSurveyFoot;

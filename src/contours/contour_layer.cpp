@@ -112,7 +112,7 @@ void write_geopackage(const std::filesystem::path& out, const std::vector<Contou
       throw_input_error(out.string(), "cannot create the layer: " + errors.last_failure());
     OGRFieldDefn elev("elevation", OFTReal);
     layer->CreateField(&elev);
-    for (const char* name : {"index", "depression", "supplementary"}) {
+    for (const char* name : {"index", "depression", "supplementary", "depth", "coastline"}) {
       OGRFieldDefn f(name, OFTInteger);
       f.SetSubType(OFSTBoolean);
       layer->CreateField(&f);
@@ -126,6 +126,8 @@ void write_geopackage(const std::filesystem::path& out, const std::vector<Contou
       f->SetField(1, l.index ? 1 : 0);
       f->SetField(2, l.depression ? 1 : 0);
       f->SetField(3, l.supplementary ? 1 : 0);
+      f->SetField(4, l.depth ? 1 : 0);
+      f->SetField(5, l.coastline ? 1 : 0);
       auto* ls = new OGRLineString();
       ls->setNumPoints(static_cast<int>(l.ground.size() + (l.closed ? 1 : 0)), FALSE);
       for (std::size_t i = 0; i < l.ground.size(); ++i)
@@ -207,6 +209,7 @@ std::vector<ContourLine> read_layer(const std::string& path, const std::string& 
     } else {
       l.uphill_known = false;
     }
+    mark_depth(l, params);
     lines.push_back(std::move(l));
   };
   for (auto& f : *layer) {
@@ -251,6 +254,7 @@ ContourFileReport contour_file(const std::string& dem_path, const std::filesyste
   report.unit = height_unit(unit_m);
   params.interval_m *= unit_m;
   params.base_m *= unit_m;
+  if (params.sea_level_m) *params.sea_level_m *= unit_m;
   if (params.interval_m == 0) {
     auto [lo, hi] = elevation_range(dem);
     if (!std::isnan(lo) && hi > lo) {

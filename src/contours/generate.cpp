@@ -82,6 +82,22 @@ void validate(const ContourParams& params) {
   }
 }
 
+void mark_depth(ContourLine& line, const ContourParams& params) {
+  line.depth = line.coastline = false;
+  line.depth_m = 0;
+  if (!params.sea_level_m) return;
+  const double below = *params.sea_level_m - line.elevation_m;
+  // Levels are whole multiples of the interval: a millionth of it is "at" the sea level.
+  if (std::abs(below) <= 1e-6 * params.interval_m) {
+    line.coastline = true;
+    line.depression = false;
+  } else if (below > 0) {
+    line.depth = true;
+    line.depth_m = below;
+    line.depression = false;
+  }
+}
+
 long level_number(double elevation_m, const ContourParams& params) {
   return std::lround((elevation_m - params.base_m) / params.interval_m);
 }
@@ -173,6 +189,7 @@ std::vector<ContourLine> generate_raw(const terrain::Dem& dem, const ContourPara
       if (line.ground.size() < 2) continue;
       detail::orient_uphill_left(line, sampler);
       detail::classify_loop(line, dem, sampler);
+      mark_depth(line, params);
     }
   };
   {

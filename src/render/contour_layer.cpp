@@ -54,6 +54,7 @@ SheetContours build_contours(const project::Project& project, const style::Style
   params.min_loop_mm = cs.min_loop_mm;
   params.supplementary = cs.supplementary.has_value();
   params.supplementary_max_slope_deg = cs.supplementary_max_slope_deg;
+  params.sea_level_m = project.elevation.sea_level_m;
 
   bool have_dem = !project.elevation.dem.empty();
   if (have_dem) {

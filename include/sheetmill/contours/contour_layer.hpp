@@ -24,7 +24,8 @@ struct LabelPoint {
 };
 
 // Writes `lines` as a GeoPackage layer "contours" (LineString, CRS from `crs_wkt`, may be empty)
-// with fields elevation (real), index, depression, supplementary (integers 1/0), and, when
+// with fields elevation (real), index, depression, supplementary, depth (below the sea level),
+// coastline (at it) (integers 1/0), and, when
 // `labels` is given, a point layer "contour_labels" (elevation, text, angle_deg, up_deg). Atomic:
 // the file appears complete under `out` or not at all. Throws Error(input) when it cannot be
 // written.
@@ -51,9 +52,9 @@ std::vector<ContourLine> read_layer(const std::string& path, const std::string& 
 
 // What `sheetmill contours` does: reads the whole DEM in its own grid, contours it (interval
 // proposed from the scale and relief when `params.interval_m` is 0), writes the GeoPackage in the
-// DEM's CRS. params.interval_m and base_m are in units of options.unit_m (the DEM's unit when
-// unset). The paper lengths of `params` (minimum loop, smoothing) are ground lengths at the
-// scale: a DEM whose CRS units are not ground metres (geographic, Web Mercator, feet) is
+// DEM's CRS. params.interval_m, base_m and sea_level_m are in units of options.unit_m (the DEM's
+// unit when unset). The paper lengths of `params` (minimum loop, smoothing) are ground lengths at
+// the scale: a DEM whose CRS units are not ground metres (geographic, Web Mercator, feet) is
 // prepared in a local plane of ground metres (contours/ground_plane.hpp).
 struct ContourFileReport {
   double interval = 0;  // in `unit`

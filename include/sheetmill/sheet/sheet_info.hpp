@@ -53,6 +53,7 @@ struct SheetInfo {
   std::string height_unit_symbol = "m";
   std::string height_unit_name = "metres";
   std::string vertical_datum;
+  std::optional<double> sea_level_m;  // set: the sheet shows depths below this height (metres)
   std::string crs_name;
   std::string datum_name;
   std::string projection_name;
