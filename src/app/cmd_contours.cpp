@@ -1,7 +1,8 @@
-// `sheetmill contours DEM OUT.gpkg --interval I [--base B] [--index-every N]`: contour lines
-// prepared for print, written to a GeoPackage with elevation, index, depression and
+// `sheetmill contours DEM OUT.gpkg --interval I [--base B] [--index-every N] [--dem-crs CRS]`:
+// contour lines prepared for print, written to a GeoPackage with elevation, index, depression and
 // supplementary fields. Thin: parses options and calls sheetmill::contours::contour_file().
 #include <memory>
+#include <optional>
 #include <string>
 
 #include "app/commands.hpp"
@@ -24,6 +25,8 @@ void add_contours_command(CLI::App& app, Action& action, const GlobalOptions&) {
     bool labels = false;
     std::string units = "auto";
     std::string scale = "1:25000";
+    std::string dem_crs;
+    std::optional<double> sea_level;
   };
   auto args = std::make_shared<Args>();
   args->params.interval_m = 0;  // 0: proposed from the scale and the relief
@@ -47,6 +50,15 @@ void add_contours_command(CLI::App& app, Action& action, const GlobalOptions&) {
       ->check(one_of({"auto", "m", "ft", "us-ft"}))
       ->type_name("UNIT")
       ->capture_default_str();
+  cmd->add_option("--dem-crs", args->dem_crs,
+                  "The DEM's CRS when the file states none (for example EPSG:4326); a CRS the "
+                  "file states wins")
+      ->type_name("CRS");
+  cmd->add_option("--sea-level", args->sea_level,
+                  "Sea (or water surface) level in --units: lines below it are depth contours "
+                  "(field depth), the line at it the coastline (field coastline)")
+      ->check(number_from(-11000, 9000, "a sea level", "(in --units)"))
+      ->type_name("HEIGHT");
   cmd->add_option("--index-every", args->params.index_every, "Every Nth line is an index contour")
       ->check(whole_number_from(1, "the index-contour step"))
       ->type_name("N")
@@ -78,12 +90,14 @@ void add_contours_command(CLI::App& app, Action& action, const GlobalOptions&) {
       contours::ContourFileOptions options;
       options.prepare = !args->raw;
       options.labels = args->labels;
+      if (!args->dem_crs.empty()) options.dem_crs = args->dem_crs;
+      args->params.sea_level_m = args->sea_level;
       if (args->units == "m") options.unit_m = 1.0;
       if (args->units == "ft") options.unit_m = kMetresPerFoot;
       if (args->units == "us-ft") options.unit_m = kMetresPerUsSurveyFoot;
       auto r = contours::contour_file(args->dem, args->out, args->params, options);
-      log::info("contours: wrote {} ({} at {:g} {}, {}, {:.1f} km, {})", args->out,
-                counted(r.lines, "line"), r.interval, r.unit.symbol,
+      log::info("contours: wrote {} ({} at {:g} {}, {} closed, {}, {:.1f} km on the ground, {})",
+                args->out, counted(r.lines, "line"), r.interval, r.unit.symbol, r.closed,
                 counted(r.vertices, "vertex", "vertices"), r.length_m / 1000,
                 counted(r.labels, "label"));
       return 0;

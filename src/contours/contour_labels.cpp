@@ -142,7 +142,10 @@ text::TextPaint paint_of(const style::LabelStyle& ls) {
 std::string contour_label_text(const ContourLine& line, const style::ContourStyle& style,
                                double unit_m) {
   const style::LabelStyle& ls = style.label;
-  std::string value = elevation_text(line.elevation_m / unit_m, 0.01, ls.text_template);
+  // Depth lines read as depths below the sea level unless the style wants negative heights.
+  const double shown =
+      line.depth && style.depths.figures_as_depth ? line.depth_m : line.elevation_m;
+  std::string value = elevation_text(shown / unit_m, 0.01, ls.text_template);
   if (ls.upper_case) std::transform(value.begin(), value.end(), value.begin(), ::toupper);
   return value;
 }
@@ -160,12 +163,16 @@ ContourLabels contour_label_candidates(const std::vector<ContourLine>& lines,
     for (double x = page.min_x + spacing / 2; x < page.max_x; x += spacing)
       ladder.push_back({x, y});
   detail::DemSampler sampler(dem);
-  text::TextPaint paint = paint_of(ls);
+  const text::TextPaint land_paint = paint_of(ls);
+  text::TextPaint depth_paint = land_paint;  // depth figures in the depth lines' colour
+  if (!style.depths.line.strokes.empty()) depth_paint.colour = style.depths.line.strokes[0].colour;
   std::map<std::string, std::shared_ptr<text::ShapedText>> shaped;
 
   for (std::size_t li = 0; li < lines.size(); ++li) {
     const ContourLine& line = lines[li];
-    if (!line.index || line.supplementary || line.ground.size() < 2) continue;
+    // The coastline is its own symbol, not a figure "0".
+    if (!line.index || line.supplementary || line.coastline || line.ground.size() < 2) continue;
+    const text::TextPaint& paint = line.depth ? depth_paint : land_paint;
     std::string value = contour_label_text(line, style, unit_m);
     auto& st = shaped[value];
     if (!st) {

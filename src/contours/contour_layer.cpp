@@ -8,9 +8,11 @@
 #include <cmath>
 
 #include "contours/dem_sampling.hpp"
+#include "contours/depression.hpp"
 #include "contours/orient.hpp"
 #include "sheetmill/contours/contour_labels.hpp"
 #include "sheetmill/contours/generate.hpp"
+#include "sheetmill/contours/ground_plane.hpp"
 #include "sheetmill/contours/prepare.hpp"
 #include "sheetmill/core/atomic_file.hpp"
 #include "sheetmill/core/caution.hpp"
@@ -118,7 +120,7 @@ void write_geopackage(const std::filesystem::path& out, const std::vector<Contou
                                           library_write_failure(out, errors.last_failure()));
     OGRFieldDefn elev("elevation", OFTReal);
     layer->CreateField(&elev);
-    for (const char* name : {"index", "depression", "supplementary"}) {
+    for (const char* name : {"index", "depression", "supplementary", "depth", "coastline"}) {
       OGRFieldDefn f(name, OFTInteger);
       f.SetSubType(OFSTBoolean);
       layer->CreateField(&f);
@@ -132,6 +134,8 @@ void write_geopackage(const std::filesystem::path& out, const std::vector<Contou
       f->SetField(1, l.index ? 1 : 0);
       f->SetField(2, l.depression ? 1 : 0);
       f->SetField(3, l.supplementary ? 1 : 0);
+      f->SetField(4, l.depth ? 1 : 0);
+      f->SetField(5, l.coastline ? 1 : 0);
       auto* ls = new OGRLineString();
       ls->setNumPoints(static_cast<int>(l.ground.size() + (l.closed ? 1 : 0)), FALSE);
       for (std::size_t i = 0; i < l.ground.size(); ++i)
@@ -223,10 +227,11 @@ std::vector<ContourLine> read_layer(const std::string& path, const std::string& 
     l.index = level_number(z, params) % params.index_every == 0;
     if (sampler) {
       detail::orient_uphill_left(l, *sampler);
-      if (l.closed) l.depression = l.uphill_known && detail::signed_area(l.ground) < 0;
+      detail::classify_loop(l, *dem, *sampler);
     } else {
       l.uphill_known = false;
     }
+    mark_depth(l, params);
     lines.push_back(std::move(l));
   };
   for (auto& f : *layer) {
@@ -251,7 +256,9 @@ ContourFileReport contour_file(const std::string& dem_path, const std::filesyste
   // Compressed GeoTIFF blocks are decoded on all cores (GDAL's multi-threaded decoding, read
   // when the dataset opens); a user's own setting wins.
   CPLConfigOptionSetter threads("GDAL_NUM_THREADS", "ALL_CPUS", true);
-  terrain::DemSource source(dem_path);
+  terrain::DemReadOptions read_options;
+  read_options.assumed_crs = options.dem_crs;
+  terrain::DemSource source(dem_path, read_options);
   if (options.labels && source.crs().IsGeographic()) {
     throw_input_error(dem_path,
                       "--labels needs a DEM in a projected CRS (labels are placed in mm at the "
@@ -269,6 +276,7 @@ ContourFileReport contour_file(const std::string& dem_path, const std::filesyste
   report.unit = height_unit(unit_m);
   params.interval_m *= unit_m;
   params.base_m *= unit_m;
+  if (params.sea_level_m) *params.sea_level_m *= unit_m;
   if (params.interval_m == 0) {
     auto [lo, hi] = elevation_range(dem);
     if (!std::isnan(lo) && hi > lo) {
@@ -282,13 +290,30 @@ ContourFileReport contour_file(const std::string& dem_path, const std::filesyste
   std::vector<ContourLine> lines;
   t0 = Clock::now();
   double t_prepare = 0;
+  ContourFileReport measured;
   try {
     lines = generate_raw(dem, params);
-    if (options.prepare) {
-      auto t1 = Clock::now();
-      prepare_for_print(lines, params, detail::DemSampler(dem).cell_m());
-      t_prepare = since(t1);
+    // Paper lengths are ground lengths: a grid not in ground metres is measured (and prepared)
+    // in a local plane; the written lines stay in the DEM's CRS.
+    std::optional<GroundPlane> plane = GroundPlane::for_grid(dem.grid);
+    auto t1 = Clock::now();
+    std::vector<ContourLine> in_plane;
+    if (plane) {
+      in_plane = options.prepare ? std::move(lines) : lines;
+      plane->to_plane(in_plane);
     }
+    std::vector<ContourLine>& metric = plane ? in_plane : lines;
+    if (options.prepare)
+      prepare_for_print(metric, params, plane ? plane->cell_m() : detail::DemSampler(dem).cell_m());
+    for (const auto& l : metric) {
+      measured.length_m += line_length(l);
+      measured.closed += l.closed;
+    }
+    if (plane && options.prepare) {
+      plane->from_plane(in_plane);
+      lines = std::move(in_plane);
+    }
+    t_prepare = since(t1);
   } catch (const Error& e) {
     if (e.kind() == Error::Kind::input && e.where().file.empty()) {
       SourceLocation where = e.where();
@@ -311,10 +336,9 @@ ContourFileReport contour_file(const std::string& dem_path, const std::filesyste
   report.labels = static_cast<long>(labels.size());
   report.interval = params.interval_m / unit_m;
   report.lines = static_cast<long>(lines.size());
-  for (const auto& l : lines) {
-    report.vertices += static_cast<long>(l.ground.size());
-    report.length_m += line_length(l);
-  }
+  report.closed = measured.closed;
+  report.length_m = measured.length_m;
+  for (const auto& l : lines) report.vertices += static_cast<long>(l.ground.size());
   return report;
 }
 

@@ -18,9 +18,24 @@ class DemSampler {
     y0_ = gt[3];
     cx_ = gt[1];
     cy_ = -gt[5];
+    // Ground metres per CRS unit: 1 for a grid in metres; a geographic grid's cell sides on the
+    // ellipsoid at its centre latitude (terrain::Dem), so slopes are true to first order.
+    if (dem.cell_x_m > 0 && cx_ != 0) kx_ = dem.cell_x_m / std::abs(cx_);
+    if (dem.cell_y_m > 0 && cy_ != 0) ky_ = dem.cell_y_m / std::abs(cy_);
   }
 
+  // The smaller cell side in the grid's CRS units.
   double cell_m() const { return std::min(std::abs(cx_), std::abs(cy_)); }
+
+  // Length of a polyline in ground metres, at the grid's central scale (a threshold's measure).
+  double ground_length(const Polyline& p, bool closed) const {
+    double s = 0;
+    for (std::size_t i = 1; i < p.size(); ++i)
+      s += std::hypot((p[i].x - p[i - 1].x) * kx_, (p[i].y - p[i - 1].y) * ky_);
+    if (closed && p.size() > 2)
+      s += std::hypot((p.back().x - p[0].x) * kx_, (p.back().y - p[0].y) * ky_);
+    return s;
+  }
 
   // Bilinear elevation at a ground point; NaN outside the grid or next to nodata.
   double elevation(Point g) const {
@@ -36,8 +51,8 @@ class DemSampler {
     return (a * (1 - tx) + b * tx) * (1 - ty) + (c * (1 - tx) + d * tx) * ty;
   }
 
-  // Gradient (dz/dE, dz/dN) by central differences of the bilinear surface over one cell;
-  // nullopt where the neighbourhood has no data.
+  // Gradient (dz/dE, dz/dN) per ground metre by central differences of the bilinear surface over
+  // one cell; nullopt where the neighbourhood has no data.
   std::optional<Point> gradient(Point g) const {
     double hx = cx_, hy = cy_;
     double e = elevation({g.x + hx, g.y}), w = elevation({g.x - hx, g.y});
@@ -53,13 +68,14 @@ class DemSampler {
       hy /= 2;
     }
     if (std::isnan(e) || std::isnan(w) || std::isnan(n) || std::isnan(s)) return std::nullopt;
-    return Point{(e - w) / (2 * hx), (n - s) / (2 * hy)};
+    return Point{(e - w) / (2 * hx * kx_), (n - s) / (2 * hy * ky_)};
   }
 
  private:
   double at(int i, int j) const { return static_cast<double>(dem_.at(i, j)); }
   const terrain::Dem& dem_;  // not owned; outlives the sampler
   double x0_, y0_, cx_, cy_;
+  double kx_ = 1, ky_ = 1;
 };
 
 }  // namespace sheetmill::contours::detail

@@ -9,7 +9,17 @@ namespace sheetmill::contours {
 
 namespace {
 
-enum Group { ordinary, index_group, supplementary_group, depression_ordinary, depression_index };
+enum Group {
+  ordinary,
+  index_group,
+  supplementary_group,
+  depression_ordinary,
+  depression_index,
+  depth_ordinary,
+  depth_index,
+  coastline_group,
+  group_count
+};
 
 // The depression symbol: its own strokes (or the index strokes for an index depression line),
 // and ticks to the right of the line's direction (downhill by orientation), at the style's
@@ -47,24 +57,32 @@ void draw_contours(cairo_t* cr, const std::vector<ContourLine>& lines,
                    const std::vector<labels::Candidate>& candidates, const MapFrame& frame,
                    const style::ContourStyle& style) {
   auto gaps = label_gaps(candidates);
-  std::vector<Polyline> groups[5];
+  std::vector<Polyline> groups[group_count];
   for (const auto& l : lines) {
     Polyline page;
     page.reserve(l.ground.size());
     for (const auto& g : l.ground) page.push_back(frame.to_page(g));
-    int group = l.supplementary ? supplementary_group
-                : l.depression  ? (l.index ? depression_index : depression_ordinary)
-                : l.index       ? index_group
-                                : ordinary;
+    // Depth lines and the coastline never carry depression ticks.
+    int group = l.coastline       ? coastline_group
+                : l.depth         ? (l.index && !l.supplementary ? depth_index : depth_ordinary)
+                : l.supplementary ? supplementary_group
+                : l.depression    ? (l.index ? depression_index : depression_ordinary)
+                : l.index         ? index_group
+                                  : ordinary;
     auto pieces = cut_out_quads(page, l.closed, gaps);
     for (auto& p : pieces) groups[group].push_back(std::move(p));
   }
-  style::LineSymbol symbols[5] = {style.line, style.index_line,
-                                  style.supplementary ? *style.supplementary : style.line,
-                                  depression_symbol(style, false), depression_symbol(style, true)};
-  // Ordinary and half-interval lines first, index lines over them.
-  for (int g :
-       {supplementary_group, ordinary, depression_ordinary, index_group, depression_index}) {
+  style::LineSymbol symbols[group_count] = {style.line,
+                                            style.index_line,
+                                            style.supplementary ? *style.supplementary : style.line,
+                                            depression_symbol(style, false),
+                                            depression_symbol(style, true),
+                                            style.depths.line,
+                                            style.depths.index_line,
+                                            style.depths.coastline};
+  // Ordinary and half-interval lines first, index lines over them, the coastline on top.
+  for (int g : {supplementary_group, ordinary, depression_ordinary, depth_ordinary, index_group,
+                depression_index, depth_index, coastline_group}) {
     if (groups[g].empty()) continue;
     for (int pass : draw::passes_of(symbols[g]))
       draw::draw_line_pass(cr, groups[g], symbols[g], pass);

@@ -7,6 +7,7 @@
 #include <thread>
 
 #include "contours/dem_sampling.hpp"
+#include "contours/depression.hpp"
 #include "contours/orient.hpp"
 #include "sheetmill/contours/gdal_contours.hpp"
 #include "sheetmill/contours/prepare.hpp"
@@ -46,7 +47,8 @@ void append_gentle_pieces(const ContourLine& line, const detail::DemSampler& dem
   piece.ground.clear();
   auto flush = [&] {
     ContourLine candidate = piece;
-    if (candidate.ground.size() >= 2 && line_length(candidate) >= min_len) out.push_back(candidate);
+    if (candidate.ground.size() >= 2 && dem.ground_length(candidate.ground, false) >= min_len)
+      out.push_back(candidate);
     piece.ground.clear();
   };
   for (std::size_t k = 0; k < count; ++k) {
@@ -80,6 +82,22 @@ void validate(const ContourParams& params) {
   }
 }
 
+void mark_depth(ContourLine& line, const ContourParams& params) {
+  line.depth = line.coastline = false;
+  line.depth_m = 0;
+  if (!params.sea_level_m) return;
+  const double below = *params.sea_level_m - line.elevation_m;
+  // Levels are whole multiples of the interval: a millionth of it is "at" the sea level.
+  if (std::abs(below) <= 1e-6 * params.interval_m) {
+    line.coastline = true;
+    line.depression = false;
+  } else if (below > 0) {
+    line.depth = true;
+    line.depth_m = below;
+    line.depression = false;
+  }
+}
+
 long level_number(double elevation_m, const ContourParams& params) {
   return std::lround((elevation_m - params.base_m) / params.interval_m);
 }
@@ -97,19 +115,37 @@ std::pair<double, double> elevation_range(const terrain::Dem& dem) {
   return {lo, hi};
 }
 
+namespace {
+
+// Contour intervals in use on sheets in feet (common practice): 1, 2, 5, 10, 20, 25, 40, 50,
+// 100 ft and their larger companions; not the metric 2.5 x 10^k steps.
+constexpr double kFootIntervals[] = {1, 2, 5, 10, 20, 25, 40, 50, 80, 100, 200, 250, 500, 1000};
+
+bool is_foot(double unit_m) {
+  return std::abs(unit_m - kMetresPerFoot) < 1e-6 ||
+         std::abs(unit_m - kMetresPerUsSurveyFoot) < 1e-6;
+}
+
+}  // namespace
+
 double propose_interval_m(double scale_denominator, double relief_m, double unit_m) {
   double lo = scale_denominator / 5000, hi = scale_denominator / 2500;
   // A round number in the unit heights are shown in (a 20 ft interval, not 6.096 m).
   double ideal = std::clamp(relief_m / 40, lo, hi) / unit_m;
-  // Round to the nearest of 1, 2, 2.5, 5 x 10^k (in ratio, not difference).
+  // The nearest usual interval in ratio, not difference.
   double best = 1, best_err = std::numeric_limits<double>::infinity();
+  auto consider = [&](double v) {
+    double err = std::abs(std::log(v / ideal));
+    if (err < best_err) best = v, best_err = err;
+  };
+  if (is_foot(unit_m)) {
+    for (double v : kFootIntervals) consider(v);
+    return best * unit_m;
+  }
+  // Metres (or another unit): 1, 2, 2.5, 5 x 10^k.
   int k0 = static_cast<int>(std::floor(std::log10(ideal)));
   for (int k = k0 - 1; k <= k0 + 1; ++k) {
-    for (double m : {1.0, 2.0, 2.5, 5.0}) {
-      double v = m * std::pow(10.0, k);
-      double err = std::abs(std::log(v / ideal));
-      if (err < best_err) best = v, best_err = err;
-    }
+    for (double m : {1.0, 2.0, 2.5, 5.0}) consider(m * std::pow(10.0, k));
   }
   return best * unit_m;
 }
@@ -152,7 +188,8 @@ std::vector<ContourLine> generate_raw(const terrain::Dem& dem, const ContourPara
       }
       if (line.ground.size() < 2) continue;
       detail::orient_uphill_left(line, sampler);
-      if (line.closed) line.depression = line.uphill_known && detail::signed_area(line.ground) < 0;
+      detail::classify_loop(line, dem, sampler);
+      mark_depth(line, params);
     }
   };
   {

@@ -4,6 +4,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <limits>
 #include <numeric>
 
 namespace sheetmill::contours {
@@ -14,6 +15,12 @@ namespace {
 // formulation): cells join the components of their higher neighbours; where two components
 // meet, the one with the lower peak ends, its prominence being its peak minus the col's
 // elevation. `sign` = -1 sweeps the inverted surface (depth of depressions).
+//
+// The ground beyond the grid's edge and inside nodata is unknown: it may rise higher than a
+// peak next to it, or hold a higher col. Each component therefore keeps the highest level at
+// which it reached a cell on the edge or next to nodata, and a peak counts only when its
+// component stayed clear of such cells down to `min_prominence` below it. A peak on the edge
+// itself, or a row of maxima along a DEM's edge (a tilted plane), never counts.
 std::vector<SpotHeight> prominent_cells(const terrain::Dem& dem, double min_prominence, double sign,
                                         SpotHeight::Kind kind) {
   const int w = dem.width(), h = dem.height();
@@ -27,18 +34,30 @@ std::vector<SpotHeight> prominent_cells(const terrain::Dem& dem, double min_prom
   std::stable_sort(order.begin(), order.end(),
                    [&](std::uint32_t a, std::uint32_t b) { return val(a) > val(b); });
   constexpr std::uint32_t none = 0xFFFFFFFFu;
+  constexpr double never = -std::numeric_limits<double>::infinity();
   std::vector<std::uint32_t> parent(n, none);  // none = not yet flooded
   std::vector<std::uint32_t> peak(n, none);    // valid at roots
   std::vector<double> prominence(n, -1);       // valid at peaks once they end
+  std::vector<double> touch(n, never);         // at roots: highest level reaching unknown ground
+  std::vector<double> touch_at_end(n, never);  // at peaks once they end
   auto find = [&](std::uint32_t x) {
     while (parent[x] != x) x = parent[x] = parent[parent[x]];
     return x;
+  };
+  // On the grid's edge or next to a nodata cell.
+  auto borders_unknown = [&](int cx, int cy) {
+    if (cx == 0 || cy == 0 || cx == w - 1 || cy == h - 1) return true;
+    for (int dy = -1; dy <= 1; ++dy)
+      for (int dx = -1; dx <= 1; ++dx)
+        if (std::isnan(dem.at(cx + dx, cy + dy))) return true;
+    return false;
   };
   std::uint32_t roots[8];
   for (std::uint32_t c : order) {
     parent[c] = c;
     peak[c] = c;
     int cx = static_cast<int>(c % w), cy = static_cast<int>(c / w);
+    const double own_touch = borders_unknown(cx, cy) ? val(c) : never;
     int nroots = 0;
     for (int dy = -1; dy <= 1; ++dy) {
       for (int dx = -1; dx <= 1; ++dx) {
@@ -50,26 +69,39 @@ std::vector<SpotHeight> prominent_cells(const terrain::Dem& dem, double min_prom
         if (std::find(roots, roots + nroots, r) == roots + nroots) roots[nroots++] = r;
       }
     }
-    if (nroots == 0) continue;  // a new peak
+    if (nroots == 0) {  // a new peak
+      touch[c] = own_touch;
+      continue;
+    }
     // The surviving component is the one with the highest peak.
     std::uint32_t best = roots[0];
     for (int k = 1; k < nroots; ++k)
       if (val(peak[roots[k]]) > val(peak[best])) best = roots[k];
+    double merged_touch = std::max(own_touch, touch[best]);
     for (int k = 0; k < nroots; ++k) {
       if (roots[k] == best) continue;
       prominence[peak[roots[k]]] = val(peak[roots[k]]) - val(c);
+      // The col itself may border unknown ground: a higher col could lie beyond it.
+      touch_at_end[peak[roots[k]]] = std::max(touch[roots[k]], own_touch);
+      // Unknown ground reached through the ended component joins the survivor only at the col.
+      merged_touch = std::max(merged_touch, std::min(touch[roots[k]], val(c)));
       parent[roots[k]] = best;
     }
     parent[c] = best;
+    touch[best] = merged_touch;
   }
   double lowest = val(order.back());
   std::vector<SpotHeight> out;
   for (std::uint32_t c : order) {
     double p = prominence[c];
-    if (parent[c] == c && peak[c] == c && p < 0) p = val(c) - lowest;  // the highest peak
+    double reached_unknown = touch_at_end[c];
+    if (parent[c] == c && peak[c] == c && p < 0) {  // the highest peak
+      p = val(c) - lowest;
+      reached_unknown = touch[c];
+    }
     if (p < min_prominence || p < 0) continue;
+    if (!(val(c) - reached_unknown > min_prominence)) continue;
     int x = static_cast<int>(c % w), y = static_cast<int>(c / w);
-    if (x == 0 || y == 0 || x == w - 1 || y == h - 1) continue;
     const double* gt = dem.grid.geotransform;
     SpotHeight s;
     s.ground = {gt[0] + (x + 0.5) * gt[1], gt[3] + (y + 0.5) * gt[5]};

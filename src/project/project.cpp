@@ -85,12 +85,13 @@ Extent read_extent(const ConfigNode& n) {
 }
 
 Elevation read_elevation(const ConfigNode& n) {
-  n.expect_keys({"dem", "vertical_unit", "crs", "vertical_datum"});
+  n.expect_keys({"dem", "vertical_unit", "crs", "vertical_datum", "sea_level"});
   Elevation el;
   el.dem = n.at("dem").as_data_source();
   if (auto u = n.find("vertical_unit")) el.vertical_unit = u->as_choice({"m", "ft", "us-ft"});
   if (auto c = n.find("crs")) el.crs = c->as_string();
   if (auto d = n.find("vertical_datum")) el.vertical_datum = d->as_string();
+  if (auto s = n.find("sea_level")) el.sea_level_m = s->as_ground_length_m();
   return el;
 }
 

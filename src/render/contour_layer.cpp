@@ -6,18 +6,33 @@
 #include "sheetmill/contours/contour_labels.hpp"
 #include "sheetmill/contours/contour_layer.hpp"
 #include "sheetmill/contours/generate.hpp"
+#include "sheetmill/contours/ground_plane.hpp"
 #include "sheetmill/contours/spot_heights.hpp"
 #include "sheetmill/contours/water_clip.hpp"
+#include "sheetmill/core/error.hpp"
 #include "sheetmill/core/log.hpp"
+#include "sheetmill/terrain/dem_source.hpp"
 
 namespace sheetmill::render {
 
 namespace {
 
-// Contours come from a grid at about the DEM's own resolution: finer adds nothing but vertices,
-// and a line 0.1 mm apart on paper is the finest a pen can separate.
+// The DEM's cell on the ground: a Web Mercator cell of 3710 m is about 2434 m at 49 degrees, so
+// its CRS units would make the contour grid a third too coarse. Rotated grids (which DemSource
+// does not read) keep terrain's measure.
+double native_ground_cell_m(const project::Project& project) {
+  const terrain::DemReadOptions options = dem_options(project);
+  try {
+    return contours::ground_cell_m(terrain::DemSource(project.elevation.dem, options).grid());
+  } catch (const Error&) {
+    return terrain::native_cell_m(project.elevation.dem, options);
+  }
+}
+
+// Contours come from a grid at about the DEM's own resolution on the ground: finer adds nothing
+// but vertices, and a line 0.1 mm apart on paper is the finest a pen can separate.
 RasterGrid contour_grid(const project::Project& project, const MapFrame& frame) {
-  double native = terrain::native_cell_m(project.elevation.dem, dem_options(project));
+  double native = native_ground_cell_m(project);
   double finest = 0.1 * frame.metres_per_mm();
   double cell = std::max(native, finest);
   double dpi = kMmPerInch / (cell * frame.mm_per_metre());
@@ -39,6 +54,7 @@ SheetContours build_contours(const project::Project& project, const style::Style
   params.min_loop_mm = cs.min_loop_mm;
   params.supplementary = cs.supplementary.has_value();
   params.supplementary_max_slope_deg = cs.supplementary_max_slope_deg;
+  params.sea_level_m = project.elevation.sea_level_m;
 
   bool have_dem = !project.elevation.dem.empty();
   if (have_dem) {
@@ -78,6 +94,9 @@ SheetContours build_contours(const project::Project& project, const style::Style
   if (!dem_has_data) return out;
   out.labels = contours::label_candidates(out.lines, out.dem, frame, cs, fonts, out.unit.metres);
   out.spots = contours::find_summits(out.dem, cs.spot_min_prominence_m);
+  // The window reaches a few cells past the frame: a summit there is off the sheet.
+  std::erase_if(out.spots,
+                [&](const contours::SpotHeight& s) { return !frame.ground.contains(s.ground); });
   for (auto& c : contours::spot_label_candidates(out.spots, frame, cs, fonts, out.unit.metres)) {
     out.labels.push_back(std::move(c));
   }

@@ -1,6 +1,7 @@
 #include "render/relief_layer.hpp"
 
 #include <algorithm>
+#include <cmath>
 
 #include "sheetmill/core/error.hpp"
 #include "sheetmill/core/handles.hpp"
@@ -13,6 +14,7 @@ terrain::DemReadOptions dem_options(const project::Project& project) {
   terrain::DemReadOptions o;
   o.assumed_crs = project.elevation.crs;
   o.vertical_unit = project.elevation.vertical_unit;
+  o.warn_coverage = false;  // render_sheet reports the frame's coverage once
   return o;
 }
 
@@ -41,6 +43,29 @@ terrain::ShadeMethod shade_method(const std::string& name) {
   if (name == "zevenbergen-thorne") return terrain::ShadeMethod::zevenbergen_thorne;
   return terrain::ShadeMethod::multidirectional;
 }
+// Cells below the sea level take the style's sea colour, opaque; shaded, it is darkened by the
+// relief's own lightness there (the relief over white paper), so the sea floor's form shows.
+void tint_sea(terrain::ReliefImage& image, const terrain::Dem& dem, double sea_level_m,
+              const style::Style& style) {
+  const style::DepthStyle& ds = style.contours.depths;
+  const std::size_t n = std::min(image.argb.size(), dem.z.size());
+  for (std::size_t i = 0; i < n; ++i) {
+    if (!(dem.z[i] < sea_level_m)) continue;
+    double lightness = 1;
+    if (ds.sea_shaded) {
+      const std::uint32_t p = image.argb[i];
+      const double a = (p >> 24) & 255, r = (p >> 16) & 255, g = (p >> 8) & 255, b = p & 255;
+      // Premultiplied ARGB over white: channel + (255 - alpha).
+      lightness = (0.299 * (r + 255 - a) + 0.587 * (g + 255 - a) + 0.114 * (b + 255 - a)) / 255;
+    }
+    auto channel = [&](double c) {
+      return static_cast<std::uint32_t>(std::lround(std::clamp(c * lightness, 0.0, 1.0) * 255));
+    };
+    image.argb[i] =
+        0xFF000000u | channel(ds.sea.r) << 16 | channel(ds.sea.g) << 8 | channel(ds.sea.b);
+  }
+}
+
 }  // namespace
 
 bool draw_relief(cairo_t* cr, const project::Project& project, const style::Style& style,
@@ -54,15 +79,7 @@ bool draw_relief(cairo_t* cr, const project::Project& project, const style::Styl
   terrain::DemReadOptions read_options = dem_options(project);
   read_options.resampling = rs.resampling;  // auto: cubic when upsampling, else average
   terrain::Dem dem = terrain::read_dem_window(project.elevation.dem, grid, read_options);
-  if (dem.valid_count() == 0) {
-    log::warn("{}: no elevation data under the map frame; the sheet has no relief",
-              project.elevation.dem);
-    return false;
-  }
-  if (dem.valid_count() < dem.z.size() * 95 / 100) {
-    log::warn("{}: elevation data covers only part of the map frame; relief is missing elsewhere",
-              project.elevation.dem);
-  }
+  if (dem.valid_count() == 0) return false;  // render_sheet has said so
   terrain::ReliefParams params;
   params.shade = rs.hillshade;
   params.shading.method = shade_method(rs.method);
@@ -77,6 +94,7 @@ bool draw_relief(cairo_t* cr, const project::Project& project, const style::Styl
   if (rs.tint_stepped && rs.tint_steps_follow_contours) params.ramp.step_m = contour_interval_m;
   params.tint_strength = rs.tint_strength;
   terrain::ReliefImage image = terrain::render_relief(dem, params);
+  if (project.elevation.sea_level_m) tint_sea(image, dem, *project.elevation.sea_level_m, style);
 
   // The canvas's recording surface keeps the image surface past this function: the surface owns
   // its pixels through Cairo user data, freed when Cairo lets the surface go.

@@ -3,6 +3,7 @@
 
 #include "render/accuracy_notes.hpp"
 #include "render/contour_layer.hpp"
+#include "render/coverage.hpp"
 #include "render/relief_layer.hpp"
 #include "sheetmill/contours/draw_contours.hpp"
 #include "sheetmill/core/atomic_file.hpp"
@@ -86,6 +87,9 @@ RenderReport render_sheet(const project::Project& project, const style::Style& s
   SheetContours sheet_contours =
       build_contours(project, style, frame, features.water_polygons_ground, fonts);
   report.seconds_contours = seconds_since(t0);
+  // Once per sheet, for the frame itself (relief and contours read the DEM silently).
+  if (!project.elevation.dem.empty())
+    warn_frame_coverage(project.elevation.dem, frame_coverage(sheet_contours.dem, frame));
 
   // Place every label on the sheet against one collision index.
   t0 = Clock::now();

@@ -42,7 +42,18 @@ void draw_notes(cairo_t* cr, const Box& box, const project::Project& project,
                 const style::Style& style, const SheetInfo& info, text::FontCache& fonts) {
   const auto& fur = style.furniture;
   std::vector<std::string> notes;
-  if (info.contour_interval_m > 0) {
+  if (info.contour_interval_m > 0 && info.sea_level_m) {
+    // Heights and depths: both references named, the depths' one as a height on the first.
+    const double u = info.height_unit_m;
+    const std::string on_datum = info.vertical_datum.empty() ? "" : " on " + info.vertical_datum;
+    notes.push_back(fmt::format(
+        "Contour interval {:g} {}. Heights and depths in {}: heights above {}, depths below the "
+        "sea level ({:g} {}{}).",
+        std::round(info.contour_interval_m / u * 1e6) / 1e6, info.height_unit_symbol,
+        info.height_unit_name,
+        info.vertical_datum.empty() ? std::string("the height datum") : info.vertical_datum,
+        std::round(*info.sea_level_m / u * 1e6) / 1e6, info.height_unit_symbol, on_datum));
+  } else if (info.contour_interval_m > 0) {
     notes.push_back(
         fmt::format("Contour interval {:g} {}. Heights in {}{}.",
                     std::round(info.contour_interval_m / info.height_unit_m * 1e6) / 1e6,

@@ -101,6 +101,7 @@ SheetInfo describe_sheet(const project::Project& project, const Layout& layout,
   info.epsg = crs.epsg();
   info.grid_interval_m = grid_interval_m(layout.frame.scale_denominator);
   if (project.elevation.vertical_datum) info.vertical_datum = *project.elevation.vertical_datum;
+  info.sea_level_m = project.elevation.sea_level_m;
   if (project.contours.interval_m) info.contour_interval_m = *project.contours.interval_m;
   const auto& vu = project.elevation.vertical_unit;
   if (vu && (*vu == "ft" || *vu == "us-ft")) info.scale_bar_units = {"m", "ft"};

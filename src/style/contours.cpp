@@ -17,6 +17,24 @@ Colour contour_brown(const Reader& r) {
   return it != r.palette().end() ? it->second : *parse_hex_colour("#9a5b2e");
 }
 
+Colour palette_or(const Reader& r, const char* name, const char* hex) {
+  auto it = r.palette().find(name);
+  return it != r.palette().end() ? it->second : *parse_hex_colour(hex);
+}
+
+void read_depths(const ConfigNode& n, Reader& r, DepthStyle& d) {
+  n.expect_keys({"line", "index_line", "figures", "coastline", "sea"});
+  if (auto l = n.find("line")) d.line = r.line(*l);
+  if (auto l = n.find("index_line")) d.index_line = r.line(*l);
+  if (auto f = n.find("figures")) d.figures_as_depth = f->as_choice({"depth", "height"}) == "depth";
+  if (auto c = n.find("coastline")) d.coastline = r.line(*c);
+  if (auto s = n.find("sea")) {
+    s->expect_keys({"colour", "shaded"});
+    if (auto c = s->find("colour")) d.sea = r.colour(*c);
+    if (auto sh = s->find("shaded")) d.sea_shaded = sh->as_bool();
+  }
+}
+
 }  // namespace
 
 ContourStyle default_contours(const Reader& r) {
@@ -36,12 +54,18 @@ ContourStyle default_contours(const Reader& r) {
   c.spot_label.text_template = "{elevation_m}";
   c.spot_label.size_pt = 6.5;
   c.spot_label.font.italic = true;
+  // Depths in the water's colour family (common practice: blue depth contours and coastline).
+  const Colour depth = palette_or(r, "depth", "#3f7fb5"), water = palette_or(r, "water", "#4a90c8");
+  c.depths.line.strokes = {Stroke{depth, 0.13, LineCap::butt, LineJoin::round, {}, 0, 0, 0}};
+  c.depths.index_line.strokes = {Stroke{depth, 0.3, LineCap::butt, LineJoin::round, {}, 0, 0, 0}};
+  c.depths.coastline.strokes = {Stroke{water, 0.3, LineCap::round, LineJoin::round, {}, 0, 0, 0}};
+  c.depths.sea = palette_or(r, "water_fill", "#cfe6f5");
   return c;
 }
 
 ContourStyle read_contours(const ConfigNode& n, Reader& r, ContourStyle c) {
   n.expect_keys({"interval", "index_every", "line", "index_line", "half_interval", "depression",
-                 "labels", "min_loop", "smoothing", "spot_heights"});
+                 "labels", "min_loop", "smoothing", "spot_heights", "depths"});
   if (auto i = n.find("interval")) {
     c.interval_m = i->as_ground_length_m();
     if (!(*c.interval_m > 0)) i->fail_expected("a positive interval such as 10m");
@@ -79,6 +103,7 @@ ContourStyle read_contours(const ConfigNode& n, Reader& r, ContourStyle c) {
   }
   if (auto m = n.find("min_loop")) c.min_loop_mm = m->as_length_mm();
   if (auto s = n.find("smoothing")) c.smoothing_mm = s->as_length_mm();
+  if (auto d = n.find("depths")) read_depths(*d, r, c.depths);
   if (auto sp = n.find("spot_heights")) {
     sp->expect_keys({"symbol", "label", "min_prominence", "depressions", "round_to"});
     if (auto s = sp->find("symbol")) c.spot_symbol = r.point(*s);

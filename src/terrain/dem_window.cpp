@@ -250,6 +250,7 @@ Dem read_dem_window(const std::string& path, const RasterGrid& target,
   detail::set_ground_cell_size(dem, dst_srs);
 
   std::size_t valid = dem.valid_count();
+  if (!options.warn_coverage) return dem;
   if (valid == 0) {
     log::warn("{}: the DEM has no data under this window; relief is left out", path);
   } else if (valid < n) {

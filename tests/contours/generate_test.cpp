@@ -2,6 +2,7 @@
 // whose radius follows from the formula.
 #include "sheetmill/contours/generate.hpp"
 
+#include <algorithm>
 #include <catch2/catch.hpp>
 #include <cmath>
 #include <set>
@@ -9,6 +10,7 @@
 #include "contours/synthetic_dem.hpp"
 #include "sheetmill/contours/prepare.hpp"
 #include "sheetmill/core/error.hpp"
+#include "sheetmill/core/units.hpp"
 
 using namespace sheetmill;
 using namespace sheetmill::contours;
@@ -128,6 +130,30 @@ TEST_CASE("proposed interval follows the scale and the relief", "[contours]") {
   CHECK(propose_interval_m(50000, 3000) == 20);
   double mid = propose_interval_m(25000, 300);  // 300 / 40 = 7.5 -> nearest of 5, 10 by ratio
   CHECK((mid == 5 || mid == 10));
+}
+
+TEST_CASE("proposed interval in feet is one of the usual foot intervals", "[contours]") {
+  // Common practice on sheets in feet: 1, 2, 5, 10, 20, 25, 40, 50, 100 ft and on up (200, 250,
+  // 500, 1000); never the metric rule's 2.5 ft.
+  const std::vector<double> usual = {1, 2, 5, 10, 20, 25, 40, 50, 80, 100, 200, 250, 500, 1000};
+  for (double unit : {kMetresPerFoot, kMetresPerUsSurveyFoot}) {
+    for (double scale : {1200.0, 2400.0, 4800.0, 12000.0, 24000.0, 62500.0, 100000.0, 250000.0}) {
+      for (double relief_ft : {20.0, 100.0, 400.0, 1000.0, 3000.0, 10000.0}) {
+        double ft = propose_interval_m(scale, relief_ft * unit, unit) / unit;
+        INFO("1:" << scale << ", " << relief_ft << " ft of relief: " << ft << " ft");
+        CHECK(std::find_if(usual.begin(), usual.end(),
+                           [&](double v) { return std::abs(v - ft) < 1e-9; }) != usual.end());
+      }
+    }
+  }
+  // Worked cases of the rule (relief / 40 within [N/5000, N/2500] m, nearest in ratio):
+  // 1:24 000 and 1000 ft: 25 ft exactly; 1:50 000 and 500 m: 12.5 m = 41 ft -> 40 ft (the metric
+  // steps would give 50); 1:12 000 and 100 ft: 2.4 m = 7.9 ft -> 10 ft.
+  CHECK(propose_interval_m(24000, 1000 * kMetresPerFoot, kMetresPerFoot) / kMetresPerFoot ==
+        Approx(25));
+  CHECK(propose_interval_m(50000, 500, kMetresPerFoot) / kMetresPerFoot == Approx(40));
+  CHECK(propose_interval_m(12000, 100 * kMetresPerFoot, kMetresPerFoot) / kMetresPerFoot ==
+        Approx(10));
 }
 
 // Supplementary (half-interval) contours appear only where the ground is gentle. The surface

@@ -4,6 +4,7 @@
 
 #include <catch2/catch.hpp>
 #include <cmath>
+#include <limits>
 
 #include "contours/synthetic_dem.hpp"
 #include "sheetmill/contours/contour_layer.hpp"
@@ -138,4 +139,46 @@ TEST_CASE("supplied contour layers: elevation field required, lines read back", 
     CHECK_THROWS_WITH(read_layer(shp.string(), "", "height", {}, "", p),
                       Catch::Contains("no elevation field"));
   }
+}
+
+TEST_CASE("spot heights: none on a tilted plane, none along a DEM's edge", "[contours][spots]") {
+  // A plane rising north-east: every cell's highest neighbour lies toward the edge, so the only
+  // maximum is the corner cell and the only minimum the opposite one, both on the edge where the
+  // ground beyond is unknown.
+  auto plane = synthetic::make_dem(120, 80, 10, 0, 800,
+                                   [](double x, double y) { return 100 + 0.02 * x + 0.01 * y; });
+  CHECK(find_summits(plane, 5).empty());
+  CHECK(find_depression_bottoms(plane, 5).empty());
+  // A knoll 30 m high on the same plane (analytic top at (600, 400)) is still found, alone.
+  auto knoll = synthetic::make_dem(120, 80, 10, 0, 800, [](double x, double y) {
+    double r2 = (x - 605) * (x - 605) + (y - 405) * (y - 405);
+    return 100 + 0.02 * x + 0.01 * y + 30 * std::exp(-r2 / (80.0 * 80.0));
+  });
+  auto summits = find_summits(knoll, 5);
+  REQUIRE(summits.size() == 1);
+  CHECK(distance(summits[0].ground, {605, 405}) <= 20);  // within two cells of the analytic top
+}
+
+TEST_CASE("spot heights: none on the border of a nodata hole", "[contours][spots]") {
+  // A cone rising toward a nodata hole of radius 200 m: the hole's border holds the highest known
+  // cells, but the ground inside the hole is unknown, so no summit may sit there. A knoll 25 m
+  // high well away from the hole and the edges is a real summit and must be kept.
+  const Point hole{400, 400}, top{1205, 405};
+  auto dem = synthetic::make_dem(160, 80, 10, 0, 800, [&](double x, double y) {
+    double r2 = (x - top.x) * (x - top.x) + (y - top.y) * (y - top.y);
+    return 300 - 0.1 * distance({x, y}, hole) + 25 * std::exp(-r2 / (60.0 * 60.0));
+  });
+  const double* gt = dem.grid.geotransform;
+  for (int r = 0; r < dem.height(); ++r)
+    for (int c = 0; c < dem.width(); ++c)
+      if (distance({gt[0] + (c + 0.5) * 10, gt[3] - (r + 0.5) * 10}, hole) < 200)
+        dem.z[static_cast<std::size_t>(r) * dem.width() + c] =
+            std::numeric_limits<float>::quiet_NaN();
+  auto summits = find_summits(dem, 5);
+  for (const auto& s : summits) {
+    INFO("summit at " << s.ground.x << ", " << s.ground.y << ": " << s.elevation_m);
+    CHECK(distance(s.ground, hole) > 200 + 3 * 10);
+  }
+  REQUIRE(summits.size() == 1);
+  CHECK(distance(summits[0].ground, top) <= 20);
 }

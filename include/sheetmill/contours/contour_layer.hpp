@@ -24,7 +24,8 @@ struct LabelPoint {
 };
 
 // Writes `lines` as a GeoPackage layer "contours" (LineString, CRS from `crs_wkt`, may be empty)
-// with fields elevation (real), index, depression, supplementary (integers 1/0), and, when
+// with fields elevation (real), index, depression, supplementary, depth (below the sea level),
+// coastline (at it) (integers 1/0), and, when
 // `labels` is given, a point layer "contour_labels" (elevation, text, angle_deg, up_deg). Atomic:
 // the file appears complete under `out` or not at all. Throws Error(input) when it cannot be
 // written.
@@ -50,13 +51,17 @@ std::vector<ContourLine> read_layer(const std::string& path, const std::string& 
                                     const terrain::Dem* dem = nullptr);
 
 // What `sheetmill contours` does: reads the whole DEM in its own grid, contours it (interval
-// proposed from the scale and relief when `params.interval_m` is 0), writes the GeoPackage.
-// params.interval_m and base_m are in units of options.unit_m (the DEM's unit when unset).
+// proposed from the scale and relief when `params.interval_m` is 0), writes the GeoPackage in the
+// DEM's CRS. params.interval_m, base_m and sea_level_m are in units of options.unit_m (the DEM's
+// unit when unset). The paper lengths of `params` (minimum loop, smoothing) are ground lengths at
+// the scale: a DEM whose CRS units are not ground metres (geographic, Web Mercator, feet) is
+// prepared in a local plane of ground metres (contours/ground_plane.hpp).
 struct ContourFileReport {
   double interval = 0;  // in `unit`
   long lines = 0;
+  long closed = 0;  // closed lines among them
   long vertices = 0;
-  double length_m = 0;
+  double length_m = 0;  // ground metres
   long labels = 0;
   HeightUnit unit;  // of the interval and the elevation field
 };
@@ -67,6 +72,8 @@ struct ContourFileOptions {
   // Metres per unit of the interval, base, elevation field and figures; unset: the DEM's own
   // vertical unit (terrain::vertical_unit_m), so a DEM in feet gets contours in feet.
   std::optional<double> unit_m;
+  // The DEM's CRS when the file states none (any definition GDAL accepts, e.g. "EPSG:4326").
+  std::optional<std::string> dem_crs;
 };
 ContourFileReport contour_file(const std::string& dem_path, const std::filesystem::path& out,
                                ContourParams params, const ContourFileOptions& options = {});

@@ -5,6 +5,7 @@
 // (the closing segment is implied). Elevations are in the DEM's vertical unit (metres unless
 // the project says otherwise); the `_m` names keep the project's convention.
 
+#include <optional>
 #include <string>
 #include <vector>
 
@@ -20,6 +21,9 @@ struct ContourLine {
   bool depression = false;     // closed line around lower ground
   bool closed = false;
   bool uphill_known = true;  // false for supplied lines read without a DEM
+  bool depth = false;        // below the sea level: a depth contour (never a depression)
+  bool coastline = false;    // at the sea level itself
+  double depth_m = 0;        // depth below the sea level, for depth lines (same unit)
   Polyline ground;           // >= 2 points; higher ground on the left (when uphill_known)
 };
 
@@ -33,7 +37,14 @@ struct ContourParams {
   bool supplementary = false;        // half-interval lines where the ground is gentle
   double supplementary_max_slope_deg = 3;
   double supplementary_min_mm = 10;  // shorter supplementary pieces are dropped
+  // The sea (or water surface) level: lines below it are depth contours, the line at it is the
+  // coastline. Unset: no sea.
+  std::optional<double> sea_level_m;
 };
+
+// Sets the depth and coastline flags of `line` from params.sea_level_m (and clears depression
+// on depth lines: a hollow of the sea floor is shown by its depths, not by ticks).
+void mark_depth(ContourLine& line, const ContourParams& params);
 
 // Throws Error(input) naming the key when the parameters cannot make contours
 // (interval <= 0, index_every < 1, scale <= 0).

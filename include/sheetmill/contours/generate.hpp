@@ -24,7 +24,9 @@ std::vector<ContourLine> generate(const terrain::Dem& dem, const ContourParams& 
 // A contour interval for a sheet, by our documented rule of thumb (docs/contours.md): aim at
 // about 40 levels across the relief, kept within [N/5000, N/2500] metres for a scale 1:N (so
 // 5-10 m at 1:25 000 and 10-20 m at 1:50 000, common practice), rounded to 1, 2, 2.5 or 5 x 10^k
-// of the unit heights are shown in (`unit_m` metres: 0.3048 for feet). Returns metres.
+// of the unit heights are shown in (`unit_m` metres), or for feet (international or US survey)
+// to the usual foot intervals 1, 2, 5, 10, 20, 25, 40, 50, 80, 100, 200, 250, 500, 1000 ft.
+// Returns metres.
 double propose_interval_m(double scale_denominator, double relief_m, double unit_m = 1.0);
 
 // Elevation range of the finite cells; {NaN, NaN} when there are none.

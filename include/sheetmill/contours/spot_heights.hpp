@@ -20,12 +20,15 @@ struct SpotHeight {
 
 // Summits whose topographic prominence (height above the highest col linking them to higher
 // ground) is at least `min_prominence_m`. The highest cell of the grid counts with prominence
-// equal to the whole relief. Maxima on the grid's edge are left out: the ground may rise
-// beyond it. Sorted by elevation, highest first.
+// equal to the whole relief. A summit counts only when its neighbourhood is known data down to
+// `min_prominence_m` below it: the ground beyond the grid's edge or in a nodata hole may rise
+// higher, so maxima on or near the edge or a nodata border are left out. Sorted by elevation,
+// highest first.
 std::vector<SpotHeight> find_summits(const terrain::Dem& dem, double min_prominence_m);
 
 // The lowest points of closed depressions at least `min_depth_m` deep (the same measure as
-// prominence, on the inverted surface). Sorted lowest first.
+// prominence, on the inverted surface, with the same rule for the edge and nodata). Sorted lowest
+// first.
 std::vector<SpotHeight> find_depression_bottoms(const terrain::Dem& dem, double min_depth_m);
 
 // The label text of a spot height or contour value: `elevation_m` rounded to `round_m` and

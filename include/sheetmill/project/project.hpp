@@ -47,6 +47,9 @@ struct Elevation {
   std::optional<std::string> vertical_unit;   // "m", "ft", "us-ft"; default from the CRS
   std::optional<std::string> crs;             // when the DEM carries none
   std::optional<std::string> vertical_datum;  // text for the notes, e.g. "EGM2008 height"
+  // The sea (or water surface) level as a height on that datum, in metres: below it contours
+  // are depths and the relief shows water. Unset: no sea.
+  std::optional<double> sea_level_m;
 };
 
 struct ContourSettings {

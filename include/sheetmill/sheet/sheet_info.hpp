@@ -55,6 +55,7 @@ struct SheetInfo {
   std::string vertical_datum;
   // The DEM's tested accuracy and any warning about the contour interval (render fills them).
   std::vector<std::string> accuracy_notes;
+  std::optional<double> sea_level_m;  // set: the sheet shows depths below this height (metres)
   std::string crs_name;
   std::string datum_name;
   std::string projection_name;

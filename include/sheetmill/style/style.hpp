@@ -177,6 +177,16 @@ struct ReliefStyle {
   std::string resampling = "auto";    // DEM to print grid: auto | cubic | bilinear | average
 };
 
+// Below the project's sea level: depth contours, the coastline, and the sea in the relief.
+struct DepthStyle {
+  LineSymbol line;               // depth contours
+  LineSymbol index_line;         // index depth contours
+  bool figures_as_depth = true;  // labels as depths below the sea level; false: negative heights
+  LineSymbol coastline;          // the line at the sea level (water colour by default)
+  Colour sea;                    // the sea's tint in the relief (the style's water colour)
+  bool sea_shaded = false;       // hillshade over the sea floor too
+};
+
 struct ContourStyle {
   int index_every = 5;               // common practice: every fifth line is an index contour
   std::optional<double> interval_m;  // the project may override
@@ -197,6 +207,7 @@ struct ContourStyle {
   double spot_min_prominence_m = 20;
   bool spot_depressions = false;
   double spot_round_m = 1;  // elevations rounded to this
+  DepthStyle depths;
 };
 
 struct GridStyle {

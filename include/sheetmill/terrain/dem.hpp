@@ -53,6 +53,9 @@ struct DemReadOptions {
   // Elevation unit when the file does not say, or to override it: "m", "ft" (international
   // foot) or "us-ft" (US survey foot).
   std::optional<std::string> vertical_unit;
+  // Log a warning when the DEM covers only part of the target grid. A sheet turns this off and
+  // reports the coverage of its map frame once (the grids reach past the frame by a margin).
+  bool warn_coverage = true;
 };
 
 // Reads the part of the DEM under `target`, warped into exactly that grid with GDAL's warper
