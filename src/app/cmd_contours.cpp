@@ -57,7 +57,7 @@ void add_contours_command(CLI::App& app, Action& action, const GlobalOptions&) {
   cmd->add_option("--sea-level", args->sea_level,
                   "Sea (or water surface) level in --units: lines below it are depth contours "
                   "(field depth), the line at it the coastline (field coastline)")
-      ->check(number_from(-11000, 9000, "a sea level", "(in --units)"))
+      ->check(number_from(-40000, 40000, "a sea level", "(in --units)"))
       ->type_name("HEIGHT");
   cmd->add_option("--index-every", args->params.index_every, "Every Nth line is an index contour")
       ->check(whole_number_from(1, "the index-contour step"))
