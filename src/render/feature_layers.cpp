@@ -276,13 +276,17 @@ void draw_prepared_layer(cairo_t* cr, const PreparedLayer& layer,
   cairo_restore(cr);
 }
 
+void draw_feature_layer(pdf::LayeredCanvas& canvas, const PreparedLayer& layer,
+                        const std::vector<Point>& clip_page_mm) {
+  cairo_t* cr = canvas.begin_group(layer.group);
+  draw_prepared_layer(cr, layer, clip_page_mm);
+  canvas.end_group();
+}
+
 void draw_feature_layers(pdf::LayeredCanvas& canvas, const PreparedLayers& prepared,
                          const style::Style&) {
-  for (const PreparedLayer& layer : prepared.layers) {
-    cairo_t* cr = canvas.begin_group(layer.group);
-    draw_prepared_layer(cr, layer, prepared.clip_page_mm);
-    canvas.end_group();
-  }
+  for (const PreparedLayer& layer : prepared.layers)
+    draw_feature_layer(canvas, layer, prepared.clip_page_mm);
 }
 
 }  // namespace sheetmill::render
