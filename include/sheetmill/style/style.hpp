@@ -137,6 +137,14 @@ struct Rule {
   std::optional<LabelStyle> label;  // overrides the layer's label
 };
 
+// A layer's part in line displacement (see features/displace.hpp): where its lines run closer to
+// another taking part than the two symbols' half-widths, the one of lower priority moves sideways
+// until they touch, by at most max_shift_mm (0: it never moves, others yield to it).
+struct Displacement {
+  int priority = 0;
+  double max_shift_mm = 0;
+};
+
 struct Layer {
   std::string id;        // unique within the style
   std::string source;    // logical source name, mapped by the project file
@@ -146,7 +154,8 @@ struct Layer {
   int order = 0;               // draw order; lower first; ties keep file order (see ReliefStyle)
   bool obstacle = false;       // labels avoid this layer's symbols
   bool water_surface = false;  // its areas are water (lakes, ponds): contours are clipped out
-  std::vector<Rule> rules;     // first matching rule wins
+  std::optional<Displacement> displacement;  // its lines take part in displacement
+  std::vector<Rule> rules;                   // first matching rule wins
   std::optional<LabelStyle> label;
 };
 
