@@ -36,7 +36,7 @@ void displace_layers(PreparedLayers& out, const std::vector<std::vector<LineRef>
   if (lines.empty()) return;
   for (const auto& c : features::displace_lines(lines)) {
     const Point g = frame.to_ground(c.at_mm);
-    log::warn(
+    log::debug(
         "layers '{}' and '{}' overlap by {:.2f} mm near E {:.0f} N {:.0f}: '{}' is held to "
         "its displacement limit of {:g} mm",
         out.layers[where[c.line].first].layer->id, out.layers[where[c.obstacle].first].layer->id,

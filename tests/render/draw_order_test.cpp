@@ -192,7 +192,8 @@ Rendered render_demo(const test::TempDir& dir,
 }
 
 std::string with_contours_order(std::string style, int order) {
-  return std::regex_replace(style, std::regex("\ncontours:\n"),
+  // In place of the style's own contours.order, if it gives one.
+  return std::regex_replace(style, std::regex("\ncontours:\n(  order: [^\n]*\n)?"),
                             "\ncontours:\n  order: " + std::to_string(order) + "\n");
 }
 
