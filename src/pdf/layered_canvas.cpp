@@ -5,6 +5,7 @@
 #ifndef POINTERHOLDER_TRANSITION
 #define POINTERHOLDER_TRANSITION 4
 #endif
+#include <algorithm>
 #include <ctime>
 #include <qpdf/QPDF.hh>
 #include <qpdf/QPDFExc.hh>
@@ -31,6 +32,7 @@ namespace sheetmill::pdf {
 struct LayeredCanvas::Impl {
   struct Group {
     std::string name;
+    Blend blend = Blend::normal;
     CairoSurfacePtr recording;
   };
   double width_mm = 0;
@@ -56,20 +58,29 @@ double LayeredCanvas::height_mm() const {
 
 std::vector<std::string> LayeredCanvas::group_names() const {
   std::vector<std::string> names;
+  for (const auto& g : impl_->groups)
+    if (std::find(names.begin(), names.end(), g.name) == names.end()) names.push_back(g.name);
+  return names;
+}
+
+std::vector<std::string> LayeredCanvas::drawing_order() const {
+  std::vector<std::string> names;
   for (const auto& g : impl_->groups) names.push_back(g.name);
   return names;
 }
 
-cairo_t* LayeredCanvas::begin_group(const std::string& name) {
+cairo_t* LayeredCanvas::begin_group(const std::string& name, Blend blend) {
   if (impl_->current) throw_internal_error("begin_group(" + name + ") inside another group");
   Impl::Group* group = nullptr;
-  for (auto& g : impl_->groups) {
-    if (g.name == name) group = &g;
+  if (!impl_->groups.empty() && impl_->groups.back().name == name &&
+      impl_->groups.back().blend == blend) {
+    group = &impl_->groups.back();
   }
   if (!group) {
     cairo_rectangle_t extents{0, 0, impl_->width_mm, impl_->height_mm};
-    impl_->groups.push_back({name, CairoSurfacePtr(cairo_recording_surface_create(
-                                       CAIRO_CONTENT_COLOR_ALPHA, &extents))});
+    impl_->groups.push_back(
+        {name, blend,
+         CairoSurfacePtr(cairo_recording_surface_create(CAIRO_CONTENT_COLOR_ALPHA, &extents))});
     group = &impl_->groups.back();
   }
   impl_->current.reset(cairo_create(group->recording.get()));
@@ -85,8 +96,10 @@ void LayeredCanvas::end_group() {
 
 namespace {
 
-void replay(cairo_t* cr, cairo_surface_t* recording) {
+// Composes one drawing onto the raster page with its blend.
+void replay(cairo_t* cr, cairo_surface_t* recording, Blend blend = Blend::normal) {
   cairo_save(cr);
+  if (blend == Blend::multiply) cairo_set_operator(cr, CAIRO_OPERATOR_MULTIPLY);
   cairo_set_source_surface(cr, recording, 0, 0);
   cairo_paint(cr);
   cairo_restore(cr);
@@ -159,25 +172,43 @@ void LayeredCanvas::finish_pdf(const std::filesystem::path& path, const GeoRegis
     auto xobjects = QPDFObjectHandle::newDictionary();
     auto properties = QPDFObjectHandle::newDictionary();
     auto ocgs = QPDFObjectHandle::newArray();
-    std::string content;
-    for (std::size_t i = 0; i < n; ++i) {
-      QPDFObjectHandle form = all[i].getFormXObjectForPage();
+    const std::vector<std::string> names = group_names();  // one OCG per name
+    for (std::size_t k = 0; k < names.size(); ++k) {
       auto ocg = QPDFObjectHandle::newDictionary();
       ocg.replaceKey("/Type", QPDFObjectHandle::newName("/OCG"));
-      ocg.replaceKey("/Name", QPDFObjectHandle::newUnicodeString(impl_->groups[i].name));
+      ocg.replaceKey("/Name", QPDFObjectHandle::newUnicodeString(names[k]));
       ocg = pdf.makeIndirectObject(ocg);
       ocgs.appendItem(ocg);
-      std::string fx = key_for("Fx", i), oc = key_for("oc", i);
-      xobjects.replaceKey(fx, form);
-      properties.replaceKey(oc, ocg);
-      // Marked content tagged /OC with the group's property name (ISO 32000-1 section 8.11.3.2).
-      content += "/OC " + oc + " BDC " + fx + " Do EMC\n";
+      properties.replaceKey(key_for("oc", k), ocg);
     }
+    // Multiply as a graphics state parameter (ISO 32000-1 section 11.6.3, /BM in an ExtGState).
+    auto ext_gstates = QPDFObjectHandle::newDictionary();
+    auto multiply = QPDFObjectHandle::newDictionary();
+    multiply.replaceKey("/Type", QPDFObjectHandle::newName("/ExtGState"));
+    multiply.replaceKey("/BM", QPDFObjectHandle::newName("/Multiply"));
+    bool any_multiply = false;
+    std::string content;
+    for (std::size_t i = 0; i < n; ++i) {
+      const Impl::Group& g = impl_->groups[i];
+      std::size_t k =
+          static_cast<std::size_t>(std::find(names.begin(), names.end(), g.name) - names.begin());
+      std::string fx = key_for("Fx", i), oc = key_for("oc", k);
+      xobjects.replaceKey(fx, all[i].getFormXObjectForPage());
+      // Marked content tagged /OC with the group's property name (ISO 32000-1 section 8.11.3.2).
+      std::string show = "/OC " + oc + " BDC " + fx + " Do EMC";
+      if (g.blend == Blend::multiply) {
+        any_multiply = true;
+        show = "q /GsMultiply gs " + show + " Q";
+      }
+      content += show + "\n";
+    }
+    if (any_multiply) ext_gstates.replaceKey("/GsMultiply", multiply);
 
     QPDFObjectHandle page = all.back().getObjectHandle();
     auto resources = QPDFObjectHandle::newDictionary();
     resources.replaceKey("/XObject", xobjects);
     resources.replaceKey("/Properties", properties);
+    if (any_multiply) resources.replaceKey("/ExtGState", ext_gstates);
     page.replaceKey("/Resources", resources);
     page.replaceKey("/Contents", QPDFObjectHandle::newStream(&pdf, content));
     for (std::size_t i = 0; i < n; ++i) doc.removePage(all[i]);
@@ -245,7 +276,7 @@ void LayeredCanvas::finish_png(const std::filesystem::path& path, double dpi,
   cairo_set_source_rgb(cr.get(), 1, 1, 1);
   cairo_paint(cr.get());
   cairo_scale(cr.get(), dpi / kMmPerInch, dpi / kMmPerInch);
-  for (const auto& g : impl_->groups) replay(cr.get(), g.recording.get());
+  for (const auto& g : impl_->groups) replay(cr.get(), g.recording.get(), g.blend);
   check_cairo(cairo_status(cr.get()), "drawing the image");
   cr.reset();
   FileWriter out(path, shown);
@@ -280,7 +311,7 @@ void LayeredCanvas::finish_geotiff(const std::filesystem::path& path, double dpi
                            -px_mm * m_per_mm};
   write_geotiff_strips(path, shown_name(path, shown_as), w, h, gt, geo.crs_wkt, [&](cairo_t* cr) {
     cairo_scale(cr, dpi / kMmPerInch, dpi / kMmPerInch);
-    for (const auto& grp : impl_->groups) replay(cr, grp.recording.get());
+    for (const auto& grp : impl_->groups) replay(cr, grp.recording.get(), grp.blend);
   });
 }
 

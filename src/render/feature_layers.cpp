@@ -3,9 +3,11 @@
 #include <algorithm>
 #include <cmath>
 #include <map>
+#include <optional>
 #include <set>
 
 #include "render/line_chains.hpp"
+#include "render/line_displacement.hpp"
 #include "sheetmill/core/log.hpp"
 #include "sheetmill/core/plural.hpp"
 #include "sheetmill/draw/area.hpp"
@@ -78,12 +80,15 @@ void area_obstacles(const std::vector<Polyline>& rings, std::vector<text::Quad>&
   }
 }
 
-double symbol_half_width_mm(const style::LineSymbol& s) {
-  double w = 0;
-  for (const auto& st : s.strokes) w = std::max(w, std::abs(st.offset_mm) + st.width_mm / 2);
-  for (const auto& m : s.marks) w = std::max(w, m.length_mm);
-  return w;
-}
+// Names along lines wait until every layer is read and displaced: pieces of one named line are
+// chained end to end first, so a name can run along the whole road rather than one short
+// segment, and along where the road is drawn.
+struct PendingPiece {
+  std::optional<LineRef> drawn;  // the piece as drawn (after displacement), else `own`
+  Polyline own;
+};
+using PendingNames =
+    std::map<std::pair<const style::LabelStyle*, std::string>, std::vector<PendingPiece>>;
 
 void clip_to(cairo_t* cr, const std::vector<Point>& ring) {
   if (ring.size() < 3) return;
@@ -121,6 +126,8 @@ FeatureLayersResult prepare_feature_layers(const project::Project& project,
   const bool any_water_flag = std::any_of(style.layers.begin(), style.layers.end(),
                                           [](const style::Layer& l) { return l.water_surface; });
 
+  std::vector<std::vector<LineRef>> line_refs;  // per prepared layer
+  std::vector<PendingNames> line_names;         // per prepared layer
   for (const style::Layer& layer : style.layers) {
     if (!layer_visible(layer, frame.scale_denominator)) continue;
     LayerReport report;
@@ -150,10 +157,8 @@ FeatureLayersResult prepare_feature_layers(const project::Project& project,
     for (std::size_t i = 0; i < layer.rules.size(); ++i)
       filter_field[i] = field_index(layer.rules[i].filter.field);
 
-    // Names along lines wait until the layer is read: pieces of one named line are chained end
-    // to end first, so a name can run along the whole road rather than one short segment.
-    std::map<std::pair<const style::LabelStyle*, std::string>, std::vector<Polyline>>
-        pending_line_names;
+    std::vector<LineRef> refs;
+    PendingNames pending_line_names;
     features::ReadRequest request{frame.crs_wkt, clip_ground, fields};
     auto sink = [&](const features::Feature& f) {
       std::size_t ri = 0;
@@ -191,17 +196,20 @@ FeatureLayersResult prepare_feature_layers(const project::Project& project,
       for (const Polyline& g : f.lines) {
         Polyline l = to_page(g, frame);
         features::simplify_polyline(l, kSimplifyMm);
-        if (layer.obstacle && rule.line)
-          line_obstacles(l, symbol_half_width_mm(*rule.line), result.obstacles);
+        std::optional<LineRef> drawn;
+        if (rule.line) drawn = LineRef{ri, pr.lines.size()};
         if (!name.empty()) {
           if (label->placement == style::LabelPlacement::point) {
             if (auto c = labels::point_name(fonts, *label, name, l[l.size() / 2], 0, layer.id))
               result.name_candidates.push_back(std::move(*c));
           } else {
-            pending_line_names[{label, name}].push_back(l);
+            pending_line_names[{label, name}].push_back({drawn, drawn ? Polyline{} : l});
           }
         }
-        if (rule.line) pr.lines.push_back(std::move(l));
+        if (drawn) {
+          refs.push_back(*drawn);
+          pr.lines.push_back(std::move(l));
+        }
       }
       for (const features::Polygon& g : f.polygons) {
         std::vector<Polyline> rings;
@@ -240,16 +248,35 @@ FeatureLayersResult prepare_feature_layers(const project::Project& project,
       }
     };
     features::read_features(*src, request, sink);
-    for (auto& [key, pieces] : pending_line_names)
-      for (const Polyline& chain : chain_lines(std::move(pieces)))
-        for (auto& c : labels::line_names(fonts, *key.first, key.second, chain, layer.id))
-          result.name_candidates.push_back(std::move(c));
+    line_refs.push_back(std::move(refs));
+    line_names.push_back(std::move(pending_line_names));
     log::debug("layer '{}': {}", layer.id, counted(report.features, "feature"));
 
     for (const PreparedRule& pr : prepared.rules)
       if (pr.features > 0 && !pr.rule->legend.empty()) result.legend_rules.push_back(pr.rule);
     result.reports.push_back(report);
     out.layers.push_back(std::move(prepared));
+  }
+
+  // Every layer read: lines that run together give way, then what depends on where lines are
+  // drawn: the footprints that labels avoid, and the names along the lines.
+  displace_layers(out, line_refs, frame);
+  for (std::size_t li = 0; li < out.layers.size(); ++li) {
+    const PreparedLayer& prepared = out.layers[li];
+    if (prepared.layer->obstacle)
+      for (const LineRef& r : line_refs[li]) {
+        const PreparedRule& pr = prepared.rules[r.rule];
+        line_obstacles(pr.lines[r.line], symbol_half_width_mm(*pr.rule->line), result.obstacles);
+      }
+    for (auto& [key, pieces] : line_names[li]) {
+      std::vector<Polyline> lines;
+      for (PendingPiece& p : pieces)
+        lines.push_back(p.drawn ? prepared.rules[p.drawn->rule].lines[p.drawn->line]
+                                : std::move(p.own));
+      for (const Polyline& chain : chain_lines(std::move(lines)))
+        for (auto& c : labels::line_names(fonts, *key.first, key.second, chain, prepared.layer->id))
+          result.name_candidates.push_back(std::move(c));
+    }
   }
   return result;
 }
@@ -277,13 +304,17 @@ void draw_prepared_layer(cairo_t* cr, const PreparedLayer& layer,
   cairo_restore(cr);
 }
 
+void draw_feature_layer(pdf::LayeredCanvas& canvas, const PreparedLayer& layer,
+                        const std::vector<Point>& clip_page_mm) {
+  cairo_t* cr = canvas.begin_group(layer.group);
+  draw_prepared_layer(cr, layer, clip_page_mm);
+  canvas.end_group();
+}
+
 void draw_feature_layers(pdf::LayeredCanvas& canvas, const PreparedLayers& prepared,
                          const style::Style&) {
-  for (const PreparedLayer& layer : prepared.layers) {
-    cairo_t* cr = canvas.begin_group(layer.group);
-    draw_prepared_layer(cr, layer, prepared.clip_page_mm);
-    canvas.end_group();
-  }
+  for (const PreparedLayer& layer : prepared.layers)
+    draw_feature_layer(canvas, layer, prepared.clip_page_mm);
 }
 
 }  // namespace sheetmill::render

@@ -12,6 +12,7 @@
 #include "sheetmill/core/log.hpp"
 #include "sheetmill/labels/candidate.hpp"
 #include "sheetmill/pdf/layered_canvas.hpp"
+#include "sheetmill/render/draw_order.hpp"
 #include "sheetmill/render/feature_layers.hpp"
 #include "sheetmill/render/render.hpp"
 #include "sheetmill/sheet/collar.hpp"
@@ -117,27 +118,37 @@ RenderReport render_sheet(const project::Project& project, const style::Style& s
   candidates.resize(first_contour_label);
   report.seconds_labels = seconds_since(t0);
 
-  // Draw, bottom to top: relief, contours, feature layers, names, grid and collar.
-  t0 = Clock::now();
-  if (!draw_relief(canvas.begin_group("relief"), project, style, frame,
-                   sheet_contours.interval_m)) {
-    report.warnings.push_back("no relief under the map frame");
+  // Draw, bottom to top: the style's layers with relief and contours at their places in its
+  // order (by default area fills, relief, water areas, contours, water lines, transport,
+  // buildings), then names, grid and collar. Each layer keeps its own optional content group.
+  std::vector<const style::Layer*> drawn_layers;
+  for (const PreparedLayer& l : prepared.layers) drawn_layers.push_back(l.layer);
+  for (const DrawStep& step :
+       draw_sequence(drawn_layers, style.relief.order, style.contours.order)) {
+    if (step.kind == DrawStep::Kind::relief) {
+      // Multiply: relief over area fills only darkens them, never hides them.
+      t0 = Clock::now();
+      if (!draw_relief(canvas.begin_group("relief", pdf::Blend::multiply), project, style, frame,
+                       sheet_contours.interval_m)) {
+        report.warnings.push_back("no relief under the map frame");
+      }
+      canvas.end_group();
+      report.seconds_relief = seconds_since(t0);
+    } else if (step.kind == DrawStep::Kind::contours) {
+      cairo_t* cr = canvas.begin_group("contours");
+      cairo_save(cr);
+      clip_to_neatline(cr, frame);
+      contours::draw_contours(cr, sheet_contours.lines, contour_labels, frame, style.contours);
+      contours::draw_spot_heights(cr, sheet_contours.spots, frame, style.contours);
+      labels::draw_placed(cr, contour_labels);
+      cairo_restore(cr);
+      canvas.end_group();
+    } else {
+      draw_feature_layer(canvas, prepared.layers[step.layer], prepared.clip_page_mm);
+    }
   }
-  canvas.end_group();
-  report.seconds_relief = seconds_since(t0);
 
-  cairo_t* cr = canvas.begin_group("contours");
-  cairo_save(cr);
-  clip_to_neatline(cr, frame);
-  contours::draw_contours(cr, sheet_contours.lines, contour_labels, frame, style.contours);
-  contours::draw_spot_heights(cr, sheet_contours.spots, frame, style.contours);
-  labels::draw_placed(cr, contour_labels);
-  cairo_restore(cr);
-  canvas.end_group();
-
-  draw_feature_layers(canvas, prepared, style);
-
-  cr = canvas.begin_group("names");
+  cairo_t* cr = canvas.begin_group("names");
   labels::draw_placed(cr, candidates);
   canvas.end_group();
 

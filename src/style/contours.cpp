@@ -65,7 +65,8 @@ ContourStyle default_contours(const Reader& r) {
 
 ContourStyle read_contours(const ConfigNode& n, Reader& r, ContourStyle c) {
   n.expect_keys({"interval", "index_every", "line", "index_line", "half_interval", "depression",
-                 "labels", "min_loop", "smoothing", "spot_heights", "depths"});
+                 "labels", "min_loop", "smoothing", "spot_heights", "depths", "order"});
+  if (auto o = n.find("order")) c.order = o->as_int();
   if (auto i = n.find("interval")) {
     c.interval_m = i->as_ground_length_m();
     if (!(*c.interval_m > 0)) i->fail_expected("a positive interval such as 10m");

@@ -30,6 +30,20 @@ void read_scales(const ConfigNode& n, Layer& layer) {
   }
 }
 
+// displacement: { priority: 50, max_shift: 2mm }
+Displacement read_displacement(const ConfigNode& n) {
+  if (!n.is_map()) n.fail_expected("a mapping with priority and max_shift");
+  n.expect_keys({"priority", "max_shift"});
+  Displacement d;
+  if (auto p = n.find("priority")) d.priority = p->as_int();
+  if (auto m = n.find("max_shift")) {
+    d.max_shift_mm = m->as_length_mm();
+    if (!(d.max_shift_mm >= 0 && d.max_shift_mm <= 10))
+      m->fail_expected("a shift from 0mm to 10mm on paper");
+  }
+  return d;
+}
+
 // The symbol keys a rule and a one-rule layer share.
 void read_symbols(const ConfigNode& n, Reader& r, Rule& rule) {
   if (auto l = n.find("line")) rule.line = r.line(*l);
@@ -58,7 +72,7 @@ Rule read_rule(const ConfigNode& n, Reader& r, const Layer& layer) {
 Layer read_layer(const ConfigNode& n, Reader& r) {
   if (!n.is_map()) n.fail_expected("a layer (a mapping with id and source)");
   n.expect_keys({"id", "source", "group", "order", "show_between", "blocks_labels", "water_surface",
-                 "label", "rules", "legend", "line", "area", "point"});
+                 "label", "rules", "legend", "line", "area", "point", "displacement"});
   Layer layer;
   layer.id = n.at("id").as_string();
   if (layer.id.empty()) n.at("id").fail_expected("a layer id");
@@ -68,6 +82,7 @@ Layer read_layer(const ConfigNode& n, Reader& r) {
   if (auto s = n.find("show_between")) read_scales(*s, layer);
   if (auto b = n.find("blocks_labels")) layer.obstacle = b->as_bool();
   if (auto w = n.find("water_surface")) layer.water_surface = w->as_bool();
+  if (auto d = n.find("displacement")) layer.displacement = read_displacement(*d);
   if (auto l = n.find("label")) {
     layer.label = r.label(*l);
     if (layer.label->text_template.empty()) l->fail("missing required key 'text'");

@@ -129,7 +129,8 @@ ReliefStyle default_relief() {
 }
 
 ReliefStyle read_relief(const ConfigNode& n, Reader& rd, ReliefStyle r) {
-  n.expect_keys({"shading", "tint", "water_shade", "raster_dpi", "resampling"});
+  n.expect_keys({"shading", "tint", "water_shade", "raster_dpi", "resampling", "order"});
+  if (auto o = n.find("order")) r.order = o->as_int();
   if (auto s = n.find("shading")) read_shading(*s, r);
   if (auto t = n.find("tint")) read_tint(*t, rd, r);
   if (auto w = n.find("water_shade")) r.water_shade = rd.colour(*w);

@@ -4,9 +4,12 @@
 // off. finish() closes Cairo, adds the PDF structure (geospatial registration, optional content,
 // metadata) and writes the file at `path`. User space of every group is page millimetres, y down.
 //
-// Groups are composed in the order they were first begun (the first is at the bottom). The PDF
-// keeps vectors as vectors and text as text (extractable); the raster exports rasterise the very
-// same recordings.
+// Drawing is composed in the order it was begun (the first is at the bottom). A group begun again
+// right after itself appends to its drawing; begun again after another group, it starts a new
+// drawing higher up in the same optional content group, so one PDF layer (water) can hold drawings
+// below and above another (water areas under the contours, water lines over them). The PDF keeps
+// vectors as vectors and text as text (extractable); the raster exports rasterise the very same
+// recordings, with the same blend.
 
 #include <cairo.h>
 
@@ -36,6 +39,11 @@ struct Metadata {
   std::string producer = "sheetmill";
 };
 
+// How a drawing is composed onto what lies under it. `multiply` only darkens (ISO 32000-1
+// section 11.3.5, blend mode Multiply; Cairo's CAIRO_OPERATOR_MULTIPLY in the raster exports), so
+// relief drawn over area fills keeps their colours.
+enum class Blend { normal, multiply };
+
 class LayeredCanvas {
  public:
   LayeredCanvas(double page_width_mm, double page_height_mm);
@@ -43,15 +51,18 @@ class LayeredCanvas {
   LayeredCanvas(const LayeredCanvas&) = delete;
   LayeredCanvas& operator=(const LayeredCanvas&) = delete;
 
-  // Starts drawing into the named group (created on first use; later calls append to it).
-  // The returned context is valid until end_group(); it is in page millimetres.
-  cairo_t* begin_group(const std::string& name);
+  // Starts drawing into the named group (see above for when a later call appends). The returned
+  // context is valid until end_group(); it is in page millimetres. `blend` applies to this
+  // drawing as a whole; appending with another blend than the drawing's starts a new drawing.
+  cairo_t* begin_group(const std::string& name, Blend blend = Blend::normal);
   void end_group();
 
   double width_mm() const;
   double height_mm() const;
-  // The group names in composition order.
+  // The group names in the order they were first begun (each once): the PDF's layer list.
   std::vector<std::string> group_names() const;
+  // Every drawing's group name, bottom to top (a name repeats when its group was interleaved).
+  std::vector<std::string> drawing_order() const;
 
   // Writes the PDF to `path` (the caller makes it atomic): one page whose content shows each
   // group as a form XObject inside its optional content group, the map frame registered as an

@@ -68,6 +68,10 @@ FeatureLayersResult prepare_feature_layers(const project::Project& project,
 void draw_feature_layers(pdf::LayeredCanvas& canvas, const PreparedLayers& prepared,
                          const style::Style& style);
 
+// One prepared layer into its group of `canvas` (render_sheet interleaves relief and contours).
+void draw_feature_layer(pdf::LayeredCanvas& canvas, const PreparedLayer& layer,
+                        const std::vector<Point>& clip_page_mm);
+
 // The same drawing onto any page-mm context (tests, previews), clipped to the neatline.
 void draw_prepared_layer(cairo_t* cr, const PreparedLayer& layer,
                          const std::vector<Point>& clip_page_mm);

@@ -140,16 +140,25 @@ struct Rule {
   std::optional<LabelStyle> label;  // overrides the layer's label
 };
 
+// A layer's part in line displacement (see features/displace.hpp): where its lines run closer to
+// another taking part than the two symbols' half-widths, the one of lower priority moves sideways
+// until they touch, by at most max_shift_mm (0: it never moves, others yield to it).
+struct Displacement {
+  int priority = 0;
+  double max_shift_mm = 0;
+};
+
 struct Layer {
   std::string id;        // unique within the style
   std::string source;    // logical source name, mapped by the project file
   std::string group;     // optional-content group in the PDF (water, transport, ...)
   double min_scale = 0;  // visible when min_scale <= N <= max_scale (N of 1:N); 0 = open
   double max_scale = 0;
-  int order = 0;               // draw order; lower first; ties keep file order
+  int order = 0;               // draw order; lower first; ties keep file order (see ReliefStyle)
   bool obstacle = false;       // labels avoid this layer's symbols
   bool water_surface = false;  // its areas are water (lakes, ponds): contours are clipped out
-  std::vector<Rule> rules;     // first matching rule wins
+  std::optional<Displacement> displacement;  // its lines take part in displacement
+  std::vector<Rule> rules;                   // first matching rule wins
   std::optional<LabelStyle> label;
 };
 
@@ -159,7 +168,15 @@ struct TintStop {
   Colour colour;
 };
 
+// Where relief and contours are drawn among the layers (Layer::order): after every layer of a
+// lower or equal order. The defaults give the usual stack (common practice) with the stock
+// styles' numbering: area fills (10), relief (15), water areas (20), contours (22), water lines
+// (25), transport, buildings, names.
+inline constexpr int kDefaultReliefOrder = 15;
+inline constexpr int kDefaultContoursOrder = 22;
+
 struct ReliefStyle {
+  int order = kDefaultReliefOrder;  // drawn with a multiply blend: it only darkens what is under it
   bool hillshade = true;
   std::string method = "multidirectional";  // horn | zevenbergen-thorne | multidirectional
   double azimuth_deg = 315;
@@ -188,8 +205,9 @@ struct DepthStyle {
 };
 
 struct ContourStyle {
-  int index_every = 5;               // common practice: every fifth line is an index contour
-  std::optional<double> interval_m;  // the project may override
+  int order = kDefaultContoursOrder;  // contours, their figures, spot heights, depression ticks
+  int index_every = 5;                // common practice: every fifth line is an index contour
+  std::optional<double> interval_m;   // the project may override
   LineSymbol line;
   LineSymbol index_line;
   std::optional<LineSymbol> supplementary;  // half-interval lines in gentle ground
