@@ -30,6 +30,11 @@ Paper read_paper(const ConfigNode& n) {
     n.fail_expected("a mapping with size (and orientation), or width and height");
   }
   n.expect_keys({"size", "width", "height", "orientation"});
+  if (auto size = n.find("size"); size && size->is_scalar() && size->as_string() == kFitPaper) {
+    if (n.has("width") || n.has("height")) n.fail("give either size or width and height, not both");
+    paper.name = kFitPaper;
+    return paper;  // orientation too is the layout's choice
+  }
   if (auto size = n.find("size")) {
     try {
       paper = paper_by_name(size->as_string());
@@ -152,9 +157,10 @@ std::vector<std::string> read_strings(const ConfigNode& n) {
 
 Project load_project(const std::filesystem::path& path) {
   ConfigNode root = config::load_file(path);
-  root.expect_keys({"title", "subtitle", "producer", "revision", "credits", "notes", "crs", "scale",
-                    "paper", "margin", "extent", "style", "elevation", "contours", "sources",
-                    "vector_data", "tile_index", "magnetic", "output"});
+  root.expect_keys({"title",       "subtitle",   "producer",  "revision", "credits",
+                    "notes",       "crs",        "scale",     "paper",    "margin",
+                    "extent",      "style",      "elevation", "contours", "sources",
+                    "vector_data", "tile_index", "magnetic",  "output",   "scale_bars"});
   Project p;
   p.file = path;
   p.title = root.at("title").as_string();
@@ -167,8 +173,16 @@ Project load_project(const std::filesystem::path& path) {
   auto scale = root.at("scale");
   p.scale = scale.as_number();
   if (p.scale < 1) scale.fail_expected("a scale denominator N of 1:N, such as 25000");
-  p.paper = read_paper(root.at("paper"));
+  // A series sheet without stated paper gets paper that fits it.
+  if (root.has("paper") || !root.has("tile_index"))
+    p.paper = read_paper(root.at("paper"));
+  else
+    p.paper.name = kFitPaper;
   if (auto m = root.find("margin")) p.margin_mm = m->as_length_mm();
+  if (auto b = root.find("scale_bars")) {
+    for (const auto& item : b->items()) p.scale_bars.push_back(item.as_choice({"m", "ft", "mi"}));
+    if (p.scale_bars.empty()) b->fail_expected("a list of scale-bar units (m, ft, mi)");
+  }
   p.extent = read_extent(root.at("extent"));
   p.style = root.at("style").as_path();
   if (auto e = root.find("elevation")) p.elevation = read_elevation(*e);

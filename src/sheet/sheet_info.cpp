@@ -8,6 +8,7 @@
 #include <optional>
 
 #include "sheetmill/core/error.hpp"
+#include "sheetmill/core/units.hpp"
 #include "sheetmill/geomag/model.hpp"
 #include "sheetmill/sheet/dms.hpp"
 #include "sheetmill/sheet/nice_numbers.hpp"
@@ -103,7 +104,13 @@ SheetInfo describe_sheet(const project::Project& project, const Layout& layout,
   if (project.elevation.vertical_datum) info.vertical_datum = *project.elevation.vertical_datum;
   if (project.contours.interval_m) info.contour_interval_m = *project.contours.interval_m;
   const auto& vu = project.elevation.vertical_unit;
-  if (vu && (*vu == "ft" || *vu == "us-ft")) info.scale_bar_units = {"m", "ft"};
+  info.scale_bar_units = project.scale_bars;
+  // Heights in feet until the render states the DEM's own unit.
+  if (vu && (*vu == "ft" || *vu == "us-ft")) {
+    info.height_unit_m = *vu == "ft" ? kMetresPerFoot : kMetresPerUsSurveyFoot;
+    info.height_unit_symbol = "ft";
+    info.height_unit_name = "feet";
+  }
   fill_north(info.north, project, crs, layout);
 
   // Read the index here when the caller did not (a single render); batch renders pass theirs.

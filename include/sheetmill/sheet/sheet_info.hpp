@@ -14,6 +14,7 @@
 #include "sheetmill/core/geometry.hpp"
 #include "sheetmill/project/project.hpp"
 #include "sheetmill/sheet/layout.hpp"
+#include "sheetmill/sheet/sheet_contents.hpp"
 #include "sheetmill/sheet/tile_index.hpp"
 
 namespace sheetmill::sheet {
@@ -58,8 +59,11 @@ struct SheetInfo {
   std::string projection_name;
   int epsg = 0;
   double grid_interval_m = 0;
-  std::vector<std::string> scale_bar_units{"m"};  // "m", "ft", "mi", one bar each
+  // The project's stated bars ("m", "ft", "mi"); empty: metres, and an imperial bar too when
+  // heights are not in metres (sheet::scale_bar_units).
+  std::vector<std::string> scale_bar_units;
   NorthInfo north;
+  SheetContents shown;  // what the render drew on the map face (for the legend)
 };
 
 // What the location diagram shows of a tile index: the whole index up to kLocationWholeIndex
