@@ -7,6 +7,7 @@
 
 #include "sheet/typeset.hpp"
 #include "sheetmill/core/handles.hpp"
+#include "sheetmill/core/log.hpp"
 #include "sheetmill/core/units.hpp"
 #include "sheetmill/draw/line.hpp"
 #include "sheetmill/sheet/legend.hpp"
@@ -151,9 +152,20 @@ void draw_collar(cairo_t* cr, const Layout& layout, const project::Project& proj
     });
     double h_notes =
         ink_bottom_mm([&](cairo_t* m) { draw_notes(m, at(0, 1000), project, style, info, fonts); });
-    double others = h_title + h_north + h_notes + kDiagramsHeightMm + 4 * kPackGapMm;
-    double legend_room = std::max(20.0, p.height() - others);
-    LegendPlan plan = plan_legend(fonts, style, entries, p.width(), legend_room);
+    double others = h_title + h_north + h_notes + 3 * kPackGapMm;
+    bool diagrams = true;
+    LegendPlan plan =
+        plan_legend(fonts, style, entries, p.width(),
+                    std::max(20.0, p.height() - others - kDiagramsHeightMm - kPackGapMm));
+    if (plan.height_mm + others + kDiagramsHeightMm + kPackGapMm > p.height() + 1e-6) {
+      // Every word of the legend, the notes and the caution before the diagrams: on paper too
+      // small for all, the diagrams give way.
+      diagrams = false;
+      plan = plan_legend(fonts, style, entries, p.width(), std::max(20.0, p.height() - others));
+      log::warn(
+          "no room for the adjoining-sheets and location diagrams on {:.0f} x {:.0f} mm paper",
+          layout.page_w_mm, layout.page_h_mm);
+    }
     double y = p.min_y;
     draw_title(cr, at(y, h_title), project, style, info, fonts);
     y += h_title + kPackGapMm;
@@ -165,7 +177,7 @@ void draw_collar(cairo_t* cr, const Layout& layout, const project::Project& proj
     y += h_north + kPackGapMm;
     draw_notes(cr, at(y, h_notes), project, style, info, fonts);
     y += h_notes + kPackGapMm;
-    draw_diagrams(cr, at(y, kDiagramsHeightMm), layout, style, info, fonts);
+    if (diagrams) draw_diagrams(cr, at(y, kDiagramsHeightMm), layout, style, info, fonts);
   } else {
     draw_title(cr, layout.title_box_mm, project, style, info, fonts);
     const Box& lb = layout.legend_box_mm;

@@ -1,8 +1,10 @@
 #include "sheetmill/sheet/layout.hpp"
 
+#include <algorithm>
 #include <cmath>
 
 #include "sheetmill/core/error.hpp"
+#include "sheetmill/core/units.hpp"
 #include "sheetmill/sheet/paper_sizes.hpp"
 #include "sheetmill/sheet/sheet_crs.hpp"
 
@@ -31,6 +33,7 @@ struct Region {
 };
 
 Region regions(double w, double h, double margin, double collar, double side_panel) {
+  // (side_panel: the panel's width, after side_panel_width_mm)
   Region r;
   r.inner = Box::of(margin + kFrameGapMm, margin + kFrameGapMm, w - margin - kFrameGapMm,
                     h - margin - kFrameGapMm);
@@ -105,6 +108,27 @@ void place_furniture(Layout& L, const Region& r, double side_panel) {
   L.sheet_frame_mm = all.expanded(kFrameGapMm);
 }
 
+// The height a one-column side panel needs, estimated from the style before the sheet's rules
+// are known: every rule with legend text plus the furniture's own entries at three quarters of
+// the body size (the legend's smallest), and the title, north diagram, notes and diagrams at
+// their usual heights (measured on the demo sheet).
+double panel_height_estimate_mm(const style::Style& style) {
+  std::size_t entries = 8;  // contour kinds, spot heights, benchmarks, grid, graticule
+  for (const auto& layer : style.layers)
+    for (const auto& rule : layer.rules) entries += rule.legend.empty() ? 0 : 1;
+  double row_mm = std::max(4.5, style.furniture.body.size_pt * 0.75 * kMmPerPt * 1.2) + 1.6;
+  return 20 + static_cast<double>(entries) * row_mm + 35 + 60 + 42 + 4 * 5;
+}
+
+// A side panel twice as wide when one column cannot hold the furniture and the map keeps most of
+// the width: the legend then runs in columns and the notes in longer lines.
+double side_panel_width_mm(const style::Style& style, double inner_w, double inner_h) {
+  double one = style.furniture.side_panel_mm;
+  if (one <= 0 || panel_height_estimate_mm(style) <= inner_h) return one;
+  double two = 2 * one + kPanelGapMm;
+  return inner_w - two >= 0.45 * inner_w ? two : one;
+}
+
 }  // namespace
 
 Layout compute_layout(const project::Project& project, const style::Style& style,
@@ -159,7 +183,10 @@ Layout compute_layout(const project::Project& project, const style::Style& style
   }
   L.page_w_mm = paper.width_mm;
   L.page_h_mm = paper.height_mm;
-  Region r = regions(L.page_w_mm, L.page_h_mm, margin, fur.collar_mm, fur.side_panel_mm);
+  double inner_w = L.page_w_mm - 2 * (margin + kFrameGapMm);
+  double inner_h = L.page_h_mm - 2 * (margin + kFrameGapMm);
+  double panel_w = side_panel_width_mm(style, inner_w, inner_h);
+  Region r = regions(L.page_w_mm, L.page_h_mm, margin, fur.collar_mm, panel_w);
 
   if (!id && !project.extent.box) {
     if (!project.extent.centre) {
@@ -191,7 +218,7 @@ Layout compute_layout(const project::Project& project, const style::Style& style
   // page coordinates rounded to 0.01 mm keep the PDF tidy without touching the scale (the
   // origin moves, the size does not).
   double collar = fur.collar_mm;
-  double comp_w = w_mm + 2 * collar + (r.side ? kPanelGapMm + fur.side_panel_mm : 0);
+  double comp_w = w_mm + 2 * collar + (r.side ? kPanelGapMm + panel_w : 0);
   double comp_h = h_mm + 2 * collar + kScaleBandMm;
   if (r.side) comp_h = std::max(comp_h, std::min(r.inner.height(), kMinPanelHeightMm));
   if (!r.side) comp_h += kPanelGapMm + kBelowPanelMm;
@@ -202,7 +229,7 @@ Layout compute_layout(const project::Project& project, const style::Style& style
                       std::round((top + collar) * 100) / 100};
   L.map_box_mm = f.page_box_mm();
   L.collar_box_mm = L.map_box_mm.expanded(collar);
-  place_furniture(L, r, fur.side_panel_mm);
+  place_furniture(L, r, panel_w);
   return L;
 }
 
@@ -217,7 +244,10 @@ project::Paper fitting_paper(const project::Project& project, const style::Style
     for (bool landscape : {false, true}) {
       PaperSize o = oriented(size, landscape);
       try {
-        Region r = regions(o.width_mm, o.height_mm, margin, fur.collar_mm, fur.side_panel_mm);
+        double in_w = o.width_mm - 2 * (margin + kFrameGapMm);
+        double in_h = o.height_mm - 2 * (margin + kFrameGapMm);
+        Region r = regions(o.width_mm, o.height_mm, margin, fur.collar_mm,
+                           side_panel_width_mm(style, in_w, in_h));
         if (w_mm <= r.map_area.width() + 1e-6 && h_mm <= r.map_area.height() + 1e-6) {
           return {o.name, o.width_mm, o.height_mm};
         }
