@@ -44,10 +44,12 @@ std::vector<SvgPath> drawn_paths(double width_mm, double height_mm,
   }
   std::string svg = read_text(svg_file);
   std::vector<SvgPath> out;
-  for (std::size_t at = svg.find("<path "); at != std::string::npos;
+  // Glyph outlines are defined in <defs> before the drawing's own group: start after them.
+  std::size_t body = svg.find("<g id=\"surface");
+  if (body == std::string::npos) body = 0;
+  for (std::size_t at = svg.find("<path ", body); at != std::string::npos;
        at = svg.find("<path ", at + 1)) {
     std::string tag = svg.substr(at, svg.find("/>", at) - at);
-    // Glyph outlines live in <defs> as paths without style; skip them.
     std::string style = attribute(tag, "style");
     if (style.empty()) continue;
     SvgPath p;
