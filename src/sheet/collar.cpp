@@ -2,6 +2,7 @@
 
 #include <fmt/format.h>
 
+#include <algorithm>
 #include <cctype>
 #include <cmath>
 
@@ -177,7 +178,9 @@ void draw_collar(cairo_t* cr, const Layout& layout, const project::Project& proj
     y += h_north + kPackGapMm;
     draw_notes(cr, at(y, h_notes), project, style, info, fonts);
     y += h_notes + kPackGapMm;
-    if (diagrams) draw_diagrams(cr, at(y, kDiagramsHeightMm), layout, style, info, fonts);
+    // The diagrams take what is left, up to half as much again as their usual height.
+    double h_diagrams = std::clamp(p.max_y - y, kDiagramsHeightMm, 1.5 * kDiagramsHeightMm);
+    if (diagrams) draw_diagrams(cr, at(y, h_diagrams), layout, style, info, fonts);
   } else {
     draw_title(cr, layout.title_box_mm, project, style, info, fonts);
     const Box& lb = layout.legend_box_mm;

@@ -47,8 +47,11 @@ struct SheetInfo {
   std::string sheet_name;
   std::vector<AdjoiningSheet> neighbours;
   std::vector<std::vector<Point>> index_outlines;  // every index sheet, ground (location diagram)
-  std::string location_caption;   // what index_outlines shows ("Sheets of the index", ...)
-  double contour_interval_m = 0;  // 0: no contours on this sheet
+  std::string location_caption;                    // what the location diagram shows
+  Box location_area;                 // ground the location diagram covers (five sheet sizes across)
+  std::vector<Point> dem_footprint;  // the DEM's outline, ground; empty: none
+  std::vector<Polyline> location_graticule;  // parallels and meridians over location_area
+  double contour_interval_m = 0;             // 0: no contours on this sheet
   // The unit heights and the interval are shown in (the DEM's vertical unit).
   double height_unit_m = 1;
   std::string height_unit_symbol = "m";
