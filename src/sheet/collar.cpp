@@ -134,6 +134,22 @@ void draw_collar(cairo_t* cr, const Layout& layout, const project::Project& proj
                  const std::vector<const style::Rule*>& legend_rules, text::FontCache& fonts) {
   cairo_save(cr);
   const auto& fur = style.furniture;
+  // The outer frame round collar, scale band and panel: first, and as four separate sides. The
+  // PDF surface rasterises what an unsupported operation touches together with every later
+  // operation whose box overlaps it; a frame drawn later as one rectangle would pull the whole
+  // panel (and its text) into such an image.
+  draw::apply_stroke(cr, fur.frame_outer);
+  const Box& f = layout.sheet_frame_mm;
+  const Point corners[] = {{f.min_x, f.min_y},
+                           {f.max_x, f.min_y},
+                           {f.max_x, f.max_y},
+                           {f.min_x, f.max_y},
+                           {f.min_x, f.min_y}};
+  for (int i = 0; i < 4; ++i) {
+    cairo_move_to(cr, corners[i].x, corners[i].y);
+    cairo_line_to(cr, corners[i + 1].x, corners[i + 1].y);
+    cairo_stroke(cr);
+  }
   double N = layout.frame.scale_denominator;
   const Box& sb = layout.scale_box_mm;
   auto units =
@@ -190,11 +206,6 @@ void draw_collar(cairo_t* cr, const Layout& layout, const project::Project& proj
     draw_notes(cr, layout.notes_box_mm, project, style, info, fonts);
     draw_diagrams(cr, layout.diagrams_box_mm, layout, style, info, fonts);
   }
-  // The outer frame round collar, scale band and panel.
-  draw::apply_stroke(cr, fur.frame_outer);
-  const Box& f = layout.sheet_frame_mm;
-  cairo_rectangle(cr, f.min_x, f.min_y, f.width(), f.height());
-  cairo_stroke(cr);
   cairo_restore(cr);
 }
 
