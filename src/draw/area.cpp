@@ -9,6 +9,10 @@ namespace sheetmill::draw {
 
 namespace {
 
+// Smallest overlap of a pattern symbol's ink box with the area's bounds worth drawing: 10 um,
+// far below what a print shows, far above Cairo's 1/256 pt fixed-point step.
+constexpr double kMinInkOverlapMm = 0.01;
+
 void rings_path(cairo_t* cr, const std::vector<Polyline>& rings) {
   cairo_new_path(cr);
   for (const Polyline& r : rings) {
@@ -63,7 +67,12 @@ std::vector<Point> pattern_points(const Box& box, const style::PatternFill& p) {
     const double shift = p.staggered && (j % 2 != 0) ? p.spacing_x_mm / 2 : 0;
     const long i0 = static_cast<long>(std::floor((box.min_x - shift) / p.spacing_x_mm));
     const long i1 = static_cast<long>(std::ceil((box.max_x - shift) / p.spacing_x_mm));
-    for (long i = i0; i <= i1; ++i) out.push_back({i * p.spacing_x_mm + shift, j * p.spacing_y_mm});
+    for (long i = i0; i <= i1; ++i) {
+      const Point q{i * p.spacing_x_mm + shift, j * p.spacing_y_mm};
+      // The rounded-out lattice reaches up to a spacing past the box: keep only points inside.
+      if (q.x > box.min_x && q.x < box.max_x && q.y > box.min_y && q.y < box.max_y)
+        out.push_back(q);
+    }
   }
   return out;
 }
@@ -94,7 +103,11 @@ void draw_area(cairo_t* cr, const std::vector<Polyline>& rings, const style::Are
       cairo_stroke(cr);
     }
     if (symbol.pattern) {
-      double r = point_symbol_radius_mm(symbol.pattern->symbol);
+      // Only symbols whose ink reaches into the clip by a visible amount. Cairo 1.16's PDF
+      // writer reports a drawing that its clip removes entirely as "nothing to do", and its
+      // analysis pass takes that status for an unsupported operation: the whole region
+      // around it then becomes a fallback image (text and paths included).
+      const double r = point_symbol_radius_mm(symbol.pattern->symbol) - kMinInkOverlapMm;
       for (const Point& p : pattern_points(box.expanded(r), *symbol.pattern))
         draw_point_symbol(cr, p, symbol.pattern->symbol, symbol.pattern->symbol.rotation_deg);
     }
