@@ -1,5 +1,6 @@
 #include "sheetmill/draw/area.hpp"
 
+#include <algorithm>
 #include <cmath>
 
 #include "sheetmill/draw/line.hpp"
@@ -103,13 +104,26 @@ void draw_area(cairo_t* cr, const std::vector<Polyline>& rings, const style::Are
       cairo_stroke(cr);
     }
     if (symbol.pattern) {
-      // Only symbols whose ink reaches into the clip by a visible amount. Cairo 1.16's PDF
-      // writer reports a drawing that its clip removes entirely as "nothing to do", and its
-      // analysis pass takes that status for an unsupported operation: the whole region
-      // around it then becomes a fallback image (text and paths included).
-      const double r = point_symbol_radius_mm(symbol.pattern->symbol) - kMinInkOverlapMm;
-      for (const Point& p : pattern_points(box.expanded(r), *symbol.pattern))
-        draw_point_symbol(cr, p, symbol.pattern->symbol, symbol.pattern->symbol.rotation_deg);
+      // Only symbols whose ink reaches into the clip (the ring within any clip already set) by
+      // a visible amount. Cairo 1.16's PDF writer reports a drawing that its clip removes
+      // entirely as "nothing to do", and its analysis pass takes that status for an
+      // unsupported operation: the whole region around it becomes a fallback image, text and
+      // paths included. Measured on the symbol's ink box, not its radius: a thin dash is far
+      // shorter across than along.
+      const auto& sym = symbol.pattern->symbol;
+      const Box ink = point_symbol_ink_box_mm(cr, sym, sym.rotation_deg);
+      // The ring's own box, within the clip set before it (whose extents Cairo rounds out to
+      // whole device units, so they alone would keep symbols just outside).
+      double x0 = 0, y0 = 0, x1 = 0, y1 = 0;
+      cairo_clip_extents(cr, &x0, &y0, &x1, &y1);
+      const Box c = Box::of(std::max(x0, box.min_x), std::max(y0, box.min_y),
+                            std::min(x1, box.max_x), std::min(y1, box.max_y));
+      const double m = kMinInkOverlapMm;
+      const Box anchors = Box::of(c.min_x - ink.max_x + m, c.min_y - ink.max_y + m,
+                                  c.max_x - ink.min_x - m, c.max_y - ink.min_y - m);
+      if (!ink.empty())
+        for (const Point& p : pattern_points(anchors, *symbol.pattern))
+          draw_point_symbol(cr, p, sym, sym.rotation_deg);
     }
     cairo_restore(cr);
   }
