@@ -24,6 +24,40 @@ void rings_path(cairo_t* cr, const std::vector<Polyline>& rings) {
   }
 }
 
+// `box` within the current clip's bounds. Cairo rounds cairo_clip_extents out to whole device
+// units (a point on a PDF page), which alone would keep symbols up to 0.35 mm outside; a clip of
+// rectangles (a swatch, an upright map frame) is read back exactly instead.
+Box clip_box_within(cairo_t* cr, const Box& box) {
+  Box clip;
+  cairo_rectangle_list_t* list = cairo_copy_clip_rectangle_list(cr);
+  if (list->status == CAIRO_STATUS_SUCCESS) {
+    for (int i = 0; i < list->num_rectangles; ++i) {
+      const cairo_rectangle_t& r = list->rectangles[i];
+      clip.add({r.x, r.y});
+      clip.add({r.x + r.width, r.y + r.height});
+    }
+  } else {
+    double x0 = 0, y0 = 0, x1 = 0, y1 = 0;
+    cairo_clip_extents(cr, &x0, &y0, &x1, &y1);
+    clip = Box::of(x0, y0, x1, y1);
+  }
+  cairo_rectangle_list_destroy(list);
+  if (clip.empty()) return clip;
+  return Box::of(std::max(clip.min_x, box.min_x), std::max(clip.min_y, box.min_y),
+                 std::min(clip.max_x, box.max_x), std::min(clip.max_y, box.max_y));
+}
+
+// Whether any of nine points of `ink` (corners, edge middles, centre; page mm) lies in the clip:
+// the box test alone keeps symbols in a polygon's notches, outside the ring itself.
+bool ink_box_in_clip(cairo_t* cr, const Box& ink) {
+  const double xs[3] = {ink.min_x, (ink.min_x + ink.max_x) / 2, ink.max_x};
+  const double ys[3] = {ink.min_y, (ink.min_y + ink.max_y) / 2, ink.max_y};
+  for (double x : xs)
+    for (double y : ys)
+      if (cairo_in_clip(cr, x, y)) return true;
+  return false;
+}
+
 Box bounds_of(const std::vector<Polyline>& rings) {
   Box b;
   for (const auto& r : rings)
@@ -90,9 +124,11 @@ void draw_area(cairo_t* cr, const std::vector<Polyline>& rings, const style::Are
   }
   if (!symbol.hatches.empty() || symbol.pattern) {
     cairo_save(cr);
+    Box box = bounds_of(rings);
+    // Measured before the ring joins the clip: a clip of rectangles reads back exactly.
+    const Box c = clip_box_within(cr, box);
     rings_path(cr, rings);
     cairo_clip(cr);
-    Box box = bounds_of(rings);
     for (const style::Hatch& h : symbol.hatches) {
       cairo_new_path(cr);
       for (const auto& [a, b] : hatch_segments(box.expanded(h.stroke.width_mm), h)) {
@@ -104,7 +140,7 @@ void draw_area(cairo_t* cr, const std::vector<Polyline>& rings, const style::Are
       cairo_stroke(cr);
     }
     if (symbol.pattern) {
-      // Only symbols whose ink reaches into the clip (the ring within any clip already set) by
+      // Only symbols whose ink reaches into the clip (the ring's box within any clip set before) by
       // a visible amount. Cairo 1.16's PDF writer reports a drawing that its clip removes
       // entirely as "nothing to do", and its analysis pass takes that status for an
       // unsupported operation: the whole region around it becomes a fallback image, text and
@@ -112,18 +148,14 @@ void draw_area(cairo_t* cr, const std::vector<Polyline>& rings, const style::Are
       // shorter across than along.
       const auto& sym = symbol.pattern->symbol;
       const Box ink = point_symbol_ink_box_mm(cr, sym, sym.rotation_deg);
-      // The ring's own box, within the clip set before it (whose extents Cairo rounds out to
-      // whole device units, so they alone would keep symbols just outside).
-      double x0 = 0, y0 = 0, x1 = 0, y1 = 0;
-      cairo_clip_extents(cr, &x0, &y0, &x1, &y1);
-      const Box c = Box::of(std::max(x0, box.min_x), std::max(y0, box.min_y),
-                            std::min(x1, box.max_x), std::min(y1, box.max_y));
       const double m = kMinInkOverlapMm;
       const Box anchors = Box::of(c.min_x - ink.max_x + m, c.min_y - ink.max_y + m,
                                   c.max_x - ink.min_x - m, c.max_y - ink.min_y - m);
-      if (!ink.empty())
+      if (!ink.empty() && !c.empty())
         for (const Point& p : pattern_points(anchors, *symbol.pattern))
-          draw_point_symbol(cr, p, sym, sym.rotation_deg);
+          if (ink_box_in_clip(
+                  cr, Box::of(p.x + ink.min_x, p.y + ink.min_y, p.x + ink.max_x, p.y + ink.max_y)))
+            draw_point_symbol(cr, p, sym, sym.rotation_deg);
     }
     cairo_restore(cr);
   }
