@@ -134,10 +134,9 @@ void draw_collar(cairo_t* cr, const Layout& layout, const project::Project& proj
                  const std::vector<const style::Rule*>& legend_rules, text::FontCache& fonts) {
   cairo_save(cr);
   const auto& fur = style.furniture;
-  // The outer frame round collar, scale band and panel: first, and as four separate sides. The
-  // PDF surface rasterises what an unsupported operation touches together with every later
-  // operation whose box overlaps it; a frame drawn later as one rectangle would pull the whole
-  // panel (and its text) into such an image.
+  // The outer frame round collar, scale band and panel, as four sides. (Everything here is
+  // plain fills, strokes and text; draw_area keeps clipped-away pattern symbols out, which
+  // Cairo 1.16's PDF writer would otherwise turn into a fallback image of the whole collar.)
   draw::apply_stroke(cr, fur.frame_outer);
   const Box& f = layout.sheet_frame_mm;
   const Point corners[] = {{f.min_x, f.min_y},
