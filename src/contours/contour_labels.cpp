@@ -229,7 +229,15 @@ ContourLabels contour_label_candidates(const std::vector<ContourLine>& lines,
         if (!inside) continue;
         Point origin = centre - along * (w / 2) - up * ((st->ascent_mm - st->descent_mm) / 2);
         labels::Placement pl;
-        pl.footprint = {fp};
+        // Also the upright box round the figures and their halo: a reader of the PDF (search,
+        // text selection, poppler) boxes rotated words upright, and two figures whose upright
+        // boxes overlap read as touching once printed on steep ground.
+        const double halo = paint.halo ? paint.halo_width_mm : 0;
+        Box upright;
+        for (double x : {-halo, w + halo})
+          for (double y : {-st->descent_mm - halo, st->ascent_mm + halo})
+            upright.add(origin + along * x + up * y);
+        pl.footprint = {fp, text::box_quad(upright)};
         pl.cost = dev / h + 0.5 * std::abs(k) * step / spacing + (on_ladder ? 0 : 0.25);
         auto text_ptr = st;
         pl.draw = [text_ptr, origin, angle, paint](cairo_t* cr) {

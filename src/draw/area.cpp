@@ -2,6 +2,7 @@
 
 #include <fmt/format.h>
 
+#include <algorithm>
 #include <cmath>
 
 #include "sheetmill/config/bounds.hpp"
@@ -13,6 +14,10 @@ namespace sheetmill::draw {
 
 namespace {
 
+// Smallest overlap of a pattern symbol's ink box with the area's bounds worth drawing: 10 um,
+// far below what a print shows, far above Cairo's 1/256 pt fixed-point step.
+constexpr double kMinInkOverlapMm = 0.01;
+
 void rings_path(cairo_t* cr, const std::vector<Polyline>& rings) {
   cairo_new_path(cr);
   for (const Polyline& r : rings) {
@@ -21,6 +26,40 @@ void rings_path(cairo_t* cr, const std::vector<Polyline>& rings) {
     for (std::size_t i = 1; i < r.size(); ++i) cairo_line_to(cr, r[i].x, r[i].y);
     cairo_close_path(cr);
   }
+}
+
+// `box` within the current clip's bounds. Cairo rounds cairo_clip_extents out to whole device
+// units (a point on a PDF page), which alone would keep symbols up to 0.35 mm outside; a clip of
+// rectangles (a swatch, an upright map frame) is read back exactly instead.
+Box clip_box_within(cairo_t* cr, const Box& box) {
+  Box clip;
+  cairo_rectangle_list_t* list = cairo_copy_clip_rectangle_list(cr);
+  if (list->status == CAIRO_STATUS_SUCCESS) {
+    for (int i = 0; i < list->num_rectangles; ++i) {
+      const cairo_rectangle_t& r = list->rectangles[i];
+      clip.add({r.x, r.y});
+      clip.add({r.x + r.width, r.y + r.height});
+    }
+  } else {
+    double x0 = 0, y0 = 0, x1 = 0, y1 = 0;
+    cairo_clip_extents(cr, &x0, &y0, &x1, &y1);
+    clip = Box::of(x0, y0, x1, y1);
+  }
+  cairo_rectangle_list_destroy(list);
+  if (clip.empty()) return clip;
+  return Box::of(std::max(clip.min_x, box.min_x), std::max(clip.min_y, box.min_y),
+                 std::min(clip.max_x, box.max_x), std::min(clip.max_y, box.max_y));
+}
+
+// Whether any of nine points of `ink` (corners, edge middles, centre; page mm) lies in the clip:
+// the box test alone keeps symbols in a polygon's notches, outside the ring itself.
+bool ink_box_in_clip(cairo_t* cr, const Box& ink) {
+  const double xs[3] = {ink.min_x, (ink.min_x + ink.max_x) / 2, ink.max_x};
+  const double ys[3] = {ink.min_y, (ink.min_y + ink.max_y) / 2, ink.max_y};
+  for (double x : xs)
+    for (double y : ys)
+      if (cairo_in_clip(cr, x, y)) return true;
+  return false;
 }
 
 Box bounds_of(const std::vector<Polyline>& rings) {
@@ -81,7 +120,12 @@ std::vector<Point> pattern_points(const Box& box, const style::PatternFill& p) {
     const double shift = p.staggered && (j % 2 != 0) ? p.spacing_x_mm / 2 : 0;
     const long i0 = static_cast<long>(std::floor((box.min_x - shift) / p.spacing_x_mm));
     const long i1 = static_cast<long>(std::ceil((box.max_x - shift) / p.spacing_x_mm));
-    for (long i = i0; i <= i1; ++i) out.push_back({i * p.spacing_x_mm + shift, j * p.spacing_y_mm});
+    for (long i = i0; i <= i1; ++i) {
+      const Point q{i * p.spacing_x_mm + shift, j * p.spacing_y_mm};
+      // The rounded-out lattice reaches up to a spacing past the box: keep only points inside.
+      if (q.x > box.min_x && q.x < box.max_x && q.y > box.min_y && q.y < box.max_y)
+        out.push_back(q);
+    }
   }
   return out;
 }
@@ -98,9 +142,11 @@ void draw_area(cairo_t* cr, const std::vector<Polyline>& rings, const style::Are
   }
   if (!symbol.hatches.empty() || symbol.pattern) {
     cairo_save(cr);
+    Box box = bounds_of(rings);
+    // Measured before the ring joins the clip: a clip of rectangles reads back exactly.
+    const Box c = clip_box_within(cr, box);
     rings_path(cr, rings);
     cairo_clip(cr);
-    Box box = bounds_of(rings);
     for (const style::Hatch& h : symbol.hatches) {
       cairo_new_path(cr);
       for (const auto& [a, b] : hatch_segments(box.expanded(h.stroke.width_mm), h)) {
@@ -112,9 +158,22 @@ void draw_area(cairo_t* cr, const std::vector<Polyline>& rings, const style::Are
       cairo_stroke(cr);
     }
     if (symbol.pattern) {
-      double r = point_symbol_radius_mm(symbol.pattern->symbol);
-      for (const Point& p : pattern_points(box.expanded(r), *symbol.pattern))
-        draw_point_symbol(cr, p, symbol.pattern->symbol, symbol.pattern->symbol.rotation_deg);
+      // Only symbols whose ink reaches into the clip (the ring's box within any clip set before) by
+      // a visible amount. Cairo 1.16's PDF writer reports a drawing that its clip removes
+      // entirely as "nothing to do", and its analysis pass takes that status for an
+      // unsupported operation: the whole region around it becomes a fallback image, text and
+      // paths included. Measured on the symbol's ink box, not its radius: a thin dash is far
+      // shorter across than along.
+      const auto& sym = symbol.pattern->symbol;
+      const Box ink = point_symbol_ink_box_mm(cr, sym, sym.rotation_deg);
+      const double m = kMinInkOverlapMm;
+      const Box anchors = Box::of(c.min_x - ink.max_x + m, c.min_y - ink.max_y + m,
+                                  c.max_x - ink.min_x - m, c.max_y - ink.min_y - m);
+      if (!ink.empty() && !c.empty())
+        for (const Point& p : pattern_points(anchors, *symbol.pattern))
+          if (ink_box_in_clip(
+                  cr, Box::of(p.x + ink.min_x, p.y + ink.min_y, p.x + ink.max_x, p.y + ink.max_y)))
+            draw_point_symbol(cr, p, sym, sym.rotation_deg);
     }
     cairo_restore(cr);
   }

@@ -130,6 +130,47 @@ void draw_point_symbol(cairo_t* cr, Point at_mm, const style::PointSymbol& symbo
   cairo_restore(cr);
 }
 
+Box point_symbol_ink_box_mm(cairo_t* cr, const style::PointSymbol& symbol, double rotation_deg) {
+  Box ink;
+  auto add = [&](void (*extents)(cairo_t*, double*, double*, double*, double*)) {
+    double x0 = 0, y0 = 0, x1 = 0, y1 = 0;
+    extents(cr, &x0, &y0, &x1, &y1);
+    if (x1 > x0 || y1 > y0) {
+      ink.add({x0, y0});
+      ink.add({x1, y1});
+    }
+  };
+  cairo_save(cr);
+  for (const style::ShapePart& part : symbol.parts) {
+    // The path is built under the rotation and kept in device space past the restore, so the
+    // extents come back in the unrotated page frame.
+    cairo_new_path(cr);
+    cairo_save(cr);
+    if (rotation_deg != 0) cairo_rotate(cr, rotation_deg * kDegToRad);
+    part_path(cr, part, symbol.scale);
+    cairo_restore(cr);
+    const bool is_cross = part.kind == style::ShapePart::Kind::cross;
+    if (part.fill && !is_cross) {
+      cairo_set_fill_rule(cr, CAIRO_FILL_RULE_EVEN_ODD);
+      add(cairo_fill_extents);
+    }
+    if (part.outline) {
+      style::Stroke st = *part.outline;
+      st.offset_mm = 0;
+      apply_stroke(cr, st);
+      add(cairo_stroke_extents);
+    } else if (is_cross && part.fill) {
+      cairo_set_line_width(cr, part.size_mm * symbol.scale / 6);
+      cairo_set_line_cap(cr, CAIRO_LINE_CAP_BUTT);
+      cairo_set_dash(cr, nullptr, 0, 0);
+      add(cairo_stroke_extents);
+    }
+  }
+  cairo_new_path(cr);
+  cairo_restore(cr);
+  return ink;
+}
+
 double point_symbol_radius_mm(const style::PointSymbol& symbol) {
   double r = 0;
   for (const auto& part : symbol.parts) r = std::max(r, part_extent(part, symbol.scale));

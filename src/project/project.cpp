@@ -34,6 +34,11 @@ Paper read_paper(const ConfigNode& n) {
     n.fail_expected("a mapping with size (and orientation), or width and height");
   }
   n.expect_keys({"size", "width", "height", "orientation"});
+  if (auto size = n.find("size"); size && size->is_scalar() && size->as_string() == kFitPaper) {
+    if (n.has("width") || n.has("height")) n.fail("give either size or width and height, not both");
+    paper.name = kFitPaper;
+    return paper;  // orientation too is the layout's choice
+  }
   if (auto size = n.find("size")) {
     try {
       paper = paper_by_name(size->as_string());
@@ -179,7 +184,8 @@ Project load_project(const std::filesystem::path& path) {
   root.expect_keys({"title",       "subtitle",   "producer",  "revision", "credits",
                     "notes",       "crs",        "scale",     "paper",    "margin",
                     "extent",      "style",      "elevation", "contours", "sources",
-                    "vector_data", "tile_index", "magnetic",  "accuracy", "output"});
+                    "vector_data", "tile_index", "magnetic",  "accuracy", "output",
+                    "scale_bars"});
   Project p;
   p.file = path;
   p.title = root.at("title").as_string();
@@ -189,16 +195,8 @@ Project load_project(const std::filesystem::path& path) {
   if (auto c = root.find("credits")) p.data_credits = read_strings(*c);
   if (auto n = root.find("notes")) p.notes = read_strings(*n);
   p.crs = root.at("crs").as_string();
-  p.scale = root.at("scale").as_scale();
-  p.paper = read_paper(root.at("paper"));
-  if (auto m = root.find("margin")) {
-    p.margin_mm = m->as_length_mm();
-    // The map face needs some paper: margins take at most 45% of the shorter side each.
-    double most_mm = 0.45 * std::min(p.paper.width_mm, p.paper.height_mm);
-    if (!(p.margin_mm >= 0 && p.margin_mm <= most_mm)) {
-      m->fail_expected(
-          fmt::format("a margin from 0mm to {:g}mm (45% of the paper's shorter side)", most_mm));
-    }
+                    "vector_data", "tile_index", "magnetic",  "accuracy", "output",
+                    "scale_bars"});
   }
   p.extent = read_extent(root.at("extent"));
   p.style = root.at("style").as_path();

@@ -48,6 +48,28 @@ pdf::GeoRegistration registration(const MapFrame& frame) {
   return geo;
 }
 
+// What the legend lists besides the style's rules: the contour kinds and spot heights drawn,
+// and the grid and graticule (draw_neatline_and_grid draws both with its default options).
+sheet::SheetContents shown_on_sheet(const SheetContours& c) {
+  sheet::SheetContents shown;
+  for (const auto& l : c.lines) {
+    using K = sheet::ContourKind;
+    shown.add(l.supplementary ? K::supplementary
+              : l.depression  ? K::depression
+              : l.index       ? K::index
+                              : K::ordinary);
+  }
+  for (const auto& s : c.spots) {
+    if (s.kind == contours::SpotHeight::Kind::control)
+      shown.benchmarks = true;
+    else
+      shown.spot_heights = true;
+  }
+  shown.grid = true;
+  shown.graticule = sheet::GridOptions{}.graticule;
+  return shown;
+}
+
 }  // namespace
 
 RenderReport render_sheet(const project::Project& project, const style::Style& style,
@@ -158,6 +180,7 @@ RenderReport render_sheet(const project::Project& project, const style::Style& s
   info.height_unit_symbol = sheet_contours.unit.symbol;
   info.height_unit_name = sheet_contours.unit.name;
   info.accuracy_notes = accuracy_notes(project, sheet_contours.interval_m);
+  info.shown = shown_on_sheet(sheet_contours);
   sheet::draw_neatline_and_grid(canvas.begin_group("grid"), layout, style, fonts);
   canvas.end_group();
   sheet::draw_collar(canvas.begin_group("collar"), layout, project, style, info,

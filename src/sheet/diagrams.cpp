@@ -1,6 +1,9 @@
 // The adjoining-sheets diagram (this sheet and its eight neighbours) and the location diagram
-// (this sheet among the tile index's sheets, or within its one-degree cell).
+// (this sheet over its DEM's footprint, among the tile index's sheets, with the graticule).
+#include <algorithm>
+
 #include "sheet/typeset.hpp"
+#include "sheetmill/core/units.hpp"
 #include "sheetmill/sheet/collar.hpp"
 
 namespace sheetmill::sheet {
@@ -48,23 +51,26 @@ void adjoining(cairo_t* cr, const Box& box, const style::Style& style, const She
   cairo_restore(cr);
 }
 
+// The sheet (filled) over the DEM's footprint (shaded), among the index sheets, with parallels
+// and meridians, over info.location_area and clipped to it.
 void location(cairo_t* cr, const Box& box, const Layout& layout, const style::Style& style,
               const SheetInfo& info, text::FontCache& fonts) {
   const auto& fur = style.furniture;
   Box head = draw_label(cr, fonts, fur.small, "Location", {box.min_x, box.min_y}, HAlign::left,
                         VAlign::top);
+  double caption_pt = fur.small.size_pt * 0.85;
   double top = head.max_y + 1.5;
-  Box area = Box::of(box.min_x, top, box.max_x, box.max_y - 4);
-  Box all;
-  for (const auto& o : info.index_outlines) {
-    for (Point p : o) all.add(p);
-  }
-  for (Point p : layout.frame.neatline) all.add(p);
-  if (all.empty() || area.width() < 5 || area.height() < 5) return;
-  double s = std::min(area.width() / all.width(), area.height() / all.height()) * 0.95;
-  Point c = area.centre(), gc = all.centre();
-  auto map = [&](Point g) { return Point{c.x + (g.x - gc.x) * s, c.y - (g.y - gc.y) * s}; };
-  auto path = [&](const std::vector<Point>& ring) {
+  // The caption wraps under the diagram; measure it first so the square fits above it.
+  auto lines = wrap_words(fonts, fur.small, info.location_caption, box.width(), caption_pt);
+  double caption_mm = static_cast<double>(lines.size()) * caption_pt * kMmPerPt * 1.25;
+  double side = std::min(box.width(), box.max_y - top - caption_mm - 1.5);
+  const Box& g = info.location_area;
+  if (side < 5 || g.empty()) return;
+  Box area = Box::of(box.min_x, top, box.min_x + side, top + side);
+  double s = side / std::max(g.width(), g.height());
+  Point c = area.centre(), gc = g.centre();
+  auto map = [&](Point p) { return Point{c.x + (p.x - gc.x) * s, c.y - (p.y - gc.y) * s}; };
+  auto path = [&](const std::vector<Point>& ring, bool close) {
     for (std::size_t i = 0; i < ring.size(); ++i) {
       Point p = map(ring[i]);
       if (i == 0)
@@ -72,21 +78,37 @@ void location(cairo_t* cr, const Box& box, const Layout& layout, const style::St
       else
         cairo_line_to(cr, p.x, p.y);
     }
-    cairo_close_path(cr);
+    if (close) cairo_close_path(cr);
   };
   cairo_save(cr);
+  cairo_rectangle(cr, area.min_x, area.min_y, area.width(), area.height());
+  cairo_clip(cr);
+  if (info.dem_footprint.size() >= 3) {
+    path(info.dem_footprint, true);
+    set_ink(cr, fur.ink, 0.12);
+    cairo_fill(cr);
+  }
+  cairo_set_line_width(cr, 0.08);
+  set_ink(cr, fur.ink, 0.45);
+  for (const auto& l : info.location_graticule) path(l, false);
+  cairo_stroke(cr);
   cairo_set_line_width(cr, 0.12);
   set_ink(cr, fur.ink);
-  for (const auto& o : info.index_outlines) path(o);
+  for (const auto& o : info.index_outlines) path(o, true);
   cairo_stroke(cr);
-  path(layout.frame.neatline);
+  path(layout.frame.neatline, true);
   set_ink(cr, fur.accent);
   cairo_fill(cr);
   cairo_restore(cr);
-  if (!info.location_caption.empty()) {
-    draw_label(cr, fonts, fur.small, info.location_caption, {box.min_x, box.max_y}, HAlign::left,
-               VAlign::bottom, fur.small.size_pt * 0.85);
-  }
+  cairo_save(cr);
+  cairo_set_line_width(cr, 0.15);
+  set_ink(cr, fur.ink);
+  cairo_rectangle(cr, area.min_x, area.min_y, area.width(), area.height());
+  cairo_stroke(cr);
+  cairo_restore(cr);
+  double y = area.max_y + 1.5;
+  draw_paragraph(cr, fonts, fur.small, info.location_caption, {box.min_x, y}, box.width(),
+                 caption_pt);
 }
 
 }  // namespace

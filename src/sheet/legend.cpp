@@ -1,51 +1,125 @@
-// The legend: one swatch and one text per rule present on the sheet, drawn by the same code that
-// draws the map's symbols (draw::draw_rule_swatch), in columns when one does not suffice.
+// The legend's layout: swatch and wrapped text per entry, filled column by column. A plan is
+// tried at the body size in one column, then in more columns, then at smaller sizes; the first
+// that fits the height wins. No entry and no word is ever left out.
+#include "sheetmill/sheet/legend.hpp"
+
+#include <algorithm>
+
 #include "sheet/typeset.hpp"
 #include "sheetmill/core/units.hpp"
 #include "sheetmill/draw/swatch.hpp"
-#include "sheetmill/sheet/collar.hpp"
 
 namespace sheetmill::sheet {
 
-std::vector<const style::Rule*> draw_legend(cairo_t* cr, const Box& box, const style::Style& style,
-                                            const std::vector<const style::Rule*>& rules,
-                                            text::FontCache& fonts) {
-  std::vector<const style::Rule*> listed;
-  for (const auto* r : rules) {
-    if (!r || r->legend.empty()) continue;
-    bool dup = false;
-    for (const auto* l : listed) dup = dup || l == r;
-    if (!dup) listed.push_back(r);
+namespace {
+
+constexpr double kSwatchWMm = 9, kSwatchHMm = 4.5, kSwatchGapMm = 2.5, kColumnGapMm = 3;
+
+double leading_mm(double size_pt) {
+  return size_pt * kMmPerPt * 1.2;
+}
+double row_gap_mm(double size_pt) {
+  return std::max(1.6, size_pt * kMmPerPt * 0.5);
+}
+
+double heading_height_mm(const style::Style& style) {
+  return style.furniture.heading.size_pt * kMmPerPt + 2;
+}
+
+LegendPlan try_plan(text::FontCache& fonts, const style::Style& style,
+                    const std::vector<LegendEntry>& entries, double width_mm, double max_h_mm,
+                    double size_pt, int columns) {
+  LegendPlan p;
+  p.size_pt = size_pt;
+  p.columns = columns;
+  p.column_w_mm = (width_mm - kColumnGapMm * (columns - 1)) / columns;
+  p.heading_mm = heading_height_mm(style);
+  double text_w = p.column_w_mm - kSwatchWMm - kSwatchGapMm;
+  std::vector<LegendRow> rows;
+  std::vector<double> heights;
+  for (std::size_t i = 0; i < entries.size(); ++i) {
+    LegendRow r;
+    r.entry = i;
+    r.lines = wrap_words(fonts, style.furniture.body, entries[i].text, text_w, size_pt);
+    double h = std::max(kSwatchHMm, leading_mm(size_pt) * static_cast<double>(r.lines.size()));
+    heights.push_back(h + row_gap_mm(size_pt));
+    rows.push_back(std::move(r));
   }
-  if (listed.empty()) return listed;
+  // Columns in reading order, each as full as the height allows; the last takes the rest.
+  double room = max_h_mm - p.heading_mm;
+  int column = 0;
+  double y = 0, tallest = 0;
+  for (std::size_t i = 0; i < rows.size(); ++i) {
+    if (y > 0 && y + heights[i] > room + 1e-9 && column + 1 < columns) {
+      ++column;
+      y = 0;
+    }
+    rows[i].column = column;
+    rows[i].y_mm = y;
+    y += heights[i];
+    tallest = std::max(tallest, y);
+  }
+  p.rows = std::move(rows);
+  p.height_mm = p.heading_mm + tallest;
+  p.fits = p.height_mm <= max_h_mm + 1e-9;
+  // Every word on a line no wider than its column (a single over-long word cannot be).
+  for (const auto& r : p.rows) {
+    for (const auto& line : r.lines) {
+      auto s = text::shape(fonts, style.furniture.body.font, size_pt, line);
+      if (s.width_mm > text_w + 1e-6 && line.find(' ') != std::string::npos) p.fits = false;
+    }
+  }
+  return p;
+}
+
+}  // namespace
+
+LegendPlan plan_legend(text::FontCache& fonts, const style::Style& style,
+                       const std::vector<LegendEntry>& entries, double width_mm,
+                       double max_height_mm) {
+  const double body = style.furniture.body.size_pt;
+  // Narrow boxes take fewer columns: each column needs room for a swatch and a few words.
+  int max_columns = std::clamp(static_cast<int>(width_mm / 45), 1, kLegendMaxColumns);
+  LegendPlan last;
+  for (double scale : {1.0, 0.9, 0.8, kLegendMinScale}) {
+    for (int columns = 1; columns <= max_columns; ++columns) {
+      last = try_plan(fonts, style, entries, width_mm, max_height_mm, body * scale, columns);
+      if (last.fits) return last;
+    }
+  }
+  return last;  // the smallest, most columns: too tall, but whole
+}
+
+Box draw_legend_plan(cairo_t* cr, const LegendPlan& plan, const std::vector<LegendEntry>& entries,
+                     Point top_left, const style::Style& style, text::FontCache& fonts) {
+  Box used;
+  if (entries.empty()) return used;
   const auto& fur = style.furniture;
-  Box head = draw_label(cr, fonts, fur.heading, "Legend", {box.min_x, box.min_y}, HAlign::left,
-                        VAlign::top);
-  const double swatch_w = 9, swatch_h = 4.5, gap = 2.5;
-  const double row = std::max(swatch_h + 1.6, fur.body.size_pt * kMmPerPt * 1.5);
-  double top = head.max_y + 2;
-  int rows = std::max(1, static_cast<int>((box.max_y - top) / row));
-  int columns = static_cast<int>((listed.size() + rows - 1) / rows);
-  double col_w = box.width() / std::max(1, columns);
-  std::vector<const style::Rule*> drawn;
-  for (std::size_t i = 0; i < listed.size(); ++i) {
-    int c = static_cast<int>(i) / rows, r = static_cast<int>(i) % rows;
-    double x = box.min_x + c * col_w, y = top + r * row;
-    if (x + swatch_w > box.max_x + 1e-6) break;  // no room: later rules are not listed
-    Box sw = Box::of(x, y, x + swatch_w, y + swatch_h);
+  Box head = draw_label(cr, fonts, fur.heading, "Legend", top_left, HAlign::left, VAlign::top);
+  used.add({head.min_x, head.min_y});
+  used.add({head.max_x, head.max_y});
+  double top = top_left.y + plan.heading_mm;
+  double lead = leading_mm(plan.size_pt);
+  for (const auto& row : plan.rows) {
+    double x = top_left.x + row.column * (plan.column_w_mm + kColumnGapMm);
+    double y = top + row.y_mm;
+    Box sw = Box::of(x, y, x + kSwatchWMm, y + kSwatchHMm);
     cairo_save(cr);
-    draw::draw_rule_swatch(cr, *listed[i], sw);
+    draw::draw_rule_swatch(cr, entries[row.entry].swatch, sw);
     cairo_restore(cr);
-    // A text longer than its column is cut at the column's edge rather than run into the next.
-    cairo_save(cr);
-    cairo_rectangle(cr, x, y - row * 0.25, col_w - 1, row * 1.5);
-    cairo_clip(cr);
-    draw_label(cr, fonts, fur.body, listed[i]->legend, {x + swatch_w + gap, sw.centre().y},
-               HAlign::left, VAlign::middle);
-    cairo_restore(cr);
-    drawn.push_back(listed[i]);
+    used.add({sw.min_x, sw.min_y});
+    used.add({sw.max_x, sw.max_y});
+    // The first line centred on the swatch, the rest below it.
+    double baseline = sw.centre().y + plan.size_pt * kMmPerPt * 0.365;
+    for (const auto& line : row.lines) {
+      Box b = draw_label(cr, fonts, fur.body, line, {x + kSwatchWMm + kSwatchGapMm, baseline},
+                         HAlign::left, VAlign::baseline, plan.size_pt);
+      used.add({b.min_x, b.min_y});
+      used.add({b.max_x, b.max_y});
+      baseline += lead;
+    }
   }
-  return drawn;
+  return used;
 }
 
 }  // namespace sheetmill::sheet

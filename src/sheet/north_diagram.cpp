@@ -1,6 +1,8 @@
 #include "sheetmill/sheet/north_diagram.hpp"
 
+#include <algorithm>
 #include <cmath>
+#include <vector>
 
 #include "sheet/typeset.hpp"
 #include "sheetmill/core/units.hpp"
@@ -9,11 +11,6 @@
 namespace sheetmill::sheet {
 
 namespace {
-
-double open_out(double deg, double min_deg) {
-  if (std::abs(deg) >= min_deg) return deg;
-  return deg < 0 ? -min_deg : min_deg;
-}
 
 void set_ink(cairo_t* cr, const Colour& c) {
   cairo_set_source_rgba(cr, c.r, c.g, c.b, c.a);
@@ -27,21 +24,48 @@ Point direction(double deg_cw_from_up) {
 }  // namespace
 
 NorthDrawing north_drawing(const NorthInfo& n, double min_deg) {
+  // Three directions from grid north (drawn straight up, fixed at 0): true north at
+  // -convergence and, with a declination, magnetic north at the grid-magnetic angle. Sorted by
+  // true angle, each line east of grid north is pushed east until it stands `min_deg` from its
+  // western neighbour, and each line west of it pushed west likewise: the drawn order, and so
+  // every sign relative to grid and to each other, is the true one. Lines at exactly the same
+  // true angle stay together (they do coincide); any true difference is drawn apart.
+  struct Dir {
+    double true_deg;
+    double* drawn;
+  };
   NorthDrawing d;
-  // True north lies at -convergence from grid north (convergence is true -> grid, east +).
-  double t = -n.grid_convergence_deg;
-  d.true_deg = open_out(t, min_deg);
-  d.exaggerated = d.true_deg != t;
-  if (auto gm = n.grid_magnetic_angle_deg()) {
-    double m = open_out(*gm, min_deg);
-    // Keep magnetic apart from true north when both lie on the same side.
-    if (std::abs(m - d.true_deg) < min_deg) {
-      double side = (*gm >= t) ? 1 : -1;
-      m = d.true_deg + side * min_deg;
-    }
-    d.exaggerated = d.exaggerated || std::abs(m - *gm) > 1e-9;
-    d.magnetic_deg = m;
+  std::vector<Dir> east, west;
+  auto sort_in = [&](double t, double* drawn) {
+    *drawn = t;
+    if (t > 0) east.push_back({t, drawn});
+    if (t < 0) west.push_back({t, drawn});
+  };
+  sort_in(-n.grid_convergence_deg, &d.true_deg);
+  auto gm = n.grid_magnetic_angle_deg();
+  if (gm) sort_in(*gm, &d.magnetic_deg);
+  std::sort(east.begin(), east.end(), [](auto& a, auto& b) { return a.true_deg < b.true_deg; });
+  std::sort(west.begin(), west.end(), [](auto& a, auto& b) { return a.true_deg > b.true_deg; });
+  double prev_true = 0, prev_drawn = 0;
+  for (auto& e : east) {
+    if (e.true_deg > prev_true)
+      *e.drawn = std::max(e.true_deg, prev_drawn + min_deg);
+    else
+      *e.drawn = prev_drawn;
+    prev_true = e.true_deg;
+    prev_drawn = *e.drawn;
   }
+  prev_true = 0, prev_drawn = 0;
+  for (auto& w : west) {
+    if (w.true_deg < prev_true)
+      *w.drawn = std::min(w.true_deg, prev_drawn - min_deg);
+    else
+      *w.drawn = prev_drawn;
+    prev_true = w.true_deg;
+    prev_drawn = *w.drawn;
+  }
+  d.exaggerated = std::abs(d.true_deg + n.grid_convergence_deg) > 1e-9 ||
+                  (gm && std::abs(d.magnetic_deg - *gm) > 1e-9);
   return d;
 }
 

@@ -12,6 +12,8 @@ namespace sheetmill::sheet {
 namespace {
 
 constexpr double kBarHeightMm = 1.6;
+// Longest bar: 160 mm is 4 km at 1:25 000 (several kilometres, common practice on field sheets).
+constexpr double kMaxBarMm = 160;
 
 void set_ink(cairo_t* cr, const Colour& c) {
   cairo_set_source_rgba(cr, c.r, c.g, c.b, c.a);
@@ -88,10 +90,12 @@ Box draw_scale_bar(cairo_t* cr, const ScaleBarPlan& p, Point zero, const style::
     if (i % 2 == 0) cairo_fill_preserve(cr);
     cairo_stroke(cr);
   }
+  // The subdivision next to zero is open where the first main segment is filled, so zero shows
+  // as the edge between ink and paper (common practice).
   for (int i = 0; i < p.subdivisions; ++i) {
     double x = zero.x - ext + i * sub;
     cairo_rectangle(cr, x, zero.y, sub, h);
-    if ((p.subdivisions - i) % 2 == 1) cairo_fill_preserve(cr);
+    if ((p.subdivisions - i) % 2 == 0) cairo_fill_preserve(cr);
     cairo_stroke(cr);
   }
   cairo_restore(cr);
@@ -112,17 +116,41 @@ Box draw_scale_bar(cairo_t* cr, const ScaleBarPlan& p, Point zero, const style::
   return used;
 }
 
+std::string imperial_unit(double N, double max_length_mm) {
+  double miles = max_length_mm / 1000.0 * N / 1609.344;
+  return miles >= 2 ? "mi" : "ft";
+}
+
+std::vector<std::string> scale_bar_units(const std::vector<std::string>& stated,
+                                         double height_unit_m, double N, double max_length_mm) {
+  if (!stated.empty()) return stated;
+  std::vector<std::string> units{"m"};
+  if (std::abs(height_unit_m - 1) > 1e-9) units.push_back(imperial_unit(N, max_length_mm));
+  return units;
+}
+
+double scale_bar_room_mm(double width_mm) {
+  return std::min(kMaxBarMm, width_mm - 40);
+}
+
 void draw_scale_panel(cairo_t* cr, const Box& box, double N, const std::vector<std::string>& units,
                       const style::Style& style, text::FontCache& fonts) {
   const auto& fur = style.furniture;
   Box rf = draw_label(cr, fonts, fur.heading, "Scale " + representative_fraction(N),
                       {box.centre().x, box.min_y + 1}, HAlign::centre, VAlign::top);
   double y = rf.max_y + 5.5;
-  // Room for the extension on the left and the unit name on the right.
-  double bar_room = box.width() - 22;
+  // One zero for every bar (common practice), the longest bar centred under the fraction.
+  double room = scale_bar_room_mm(box.width());
+  if (room <= 0) return;
+  std::vector<ScaleBarPlan> plans;
+  double ext = 0, right = 0;
   for (const auto& u : units) {
-    ScaleBarPlan p = plan_scale_bar(N, bar_room, scale_unit(u));
-    double zero_x = box.min_x + 3 + p.segment_mm;
+    plans.push_back(plan_scale_bar(N, room, scale_unit(u)));
+    ext = std::max(ext, plans.back().segment_mm);
+    right = std::max(right, plans.back().segment_mm * plans.back().segments);
+  }
+  double zero_x = box.centre().x - (right - ext) / 2;
+  for (const auto& p : plans) {
     if (y + kBarHeightMm > box.max_y) break;
     draw_scale_bar(cr, p, {zero_x, y}, style, fonts);
     y += kBarHeightMm + 6.5;

@@ -7,7 +7,9 @@
 #include <cstdio>
 #include <optional>
 
+#include "sheet/location_context.hpp"
 #include "sheetmill/core/error.hpp"
+#include "sheetmill/core/units.hpp"
 #include "sheetmill/geomag/model.hpp"
 #include "sheetmill/sheet/dms.hpp"
 #include "sheetmill/sheet/nice_numbers.hpp"
@@ -16,6 +18,8 @@
 namespace sheetmill::sheet {
 
 namespace {
+
+constexpr double kLocationDiagramMm = 30;  // about the location diagram's width in the panel
 
 std::string today() {
   auto now = std::chrono::system_clock::now();
@@ -68,7 +72,7 @@ void fill_north(NorthInfo& n, const project::Project& project, const SheetCrs& c
 void location_outlines(const TileIndexContents& index, const IndexSheet& sheet, SheetInfo& info) {
   if (index.sheets.size() <= kLocationWholeIndex) {
     for (const auto& o : index.sheets) info.index_outlines.push_back(o.outline);
-    info.location_caption = "Sheets of the index";
+    info.location_caption.clear();  // the diagram's caption names the index sheets
     return;
   }
   Box all;
@@ -104,7 +108,13 @@ SheetInfo describe_sheet(const project::Project& project, const Layout& layout,
   info.sea_level_m = project.elevation.sea_level_m;
   if (project.contours.interval_m) info.contour_interval_m = *project.contours.interval_m;
   const auto& vu = project.elevation.vertical_unit;
-  if (vu && (*vu == "ft" || *vu == "us-ft")) info.scale_bar_units = {"m", "ft"};
+  info.scale_bar_units = project.scale_bars;
+  // Heights in feet until the render states the DEM's own unit.
+  if (vu && (*vu == "ft" || *vu == "us-ft")) {
+    info.height_unit_m = *vu == "ft" ? kMetresPerFoot : kMetresPerUsSurveyFoot;
+    info.height_unit_symbol = "ft";
+    info.height_unit_name = "feet";
+  }
   fill_north(info.north, project, crs, layout);
 
   // Read the index here when the caller did not (a single render); batch renders pass theirs.
@@ -129,33 +139,18 @@ SheetInfo describe_sheet(const project::Project& project, const Layout& layout,
       location_outlines(*index, s, info);
     }
   }
-  if (info.index_outlines.empty()) {
-    // The one-degree cell of the graticule around the sheet centre.
-    Point c = info.north.centre_lonlat;
-    double lon0 = std::floor(c.x), lat0 = std::floor(c.y);
-    std::vector<Point> cell;
-    const int steps = 16;
-    auto add = [&](Point a, Point b) {
-      for (int i = 0; i < steps; ++i) {
-        Point ll = a + (b - a) * (double(i) / steps);
-        try {
-          cell.push_back(crs.to_ground(ll));
-        } catch (const Error&) {
-          // Outside the projection's domain: leave that piece out.
-        }
-      }
-    };
-    add({lon0, lat0 + 1}, {lon0 + 1, lat0 + 1});
-    add({lon0 + 1, lat0 + 1}, {lon0 + 1, lat0});
-    add({lon0 + 1, lat0}, {lon0, lat0});
-    add({lon0, lat0}, {lon0, lat0 + 1});
-    if (cell.size() >= 3) info.index_outlines.push_back(cell);
-    info.location_caption =
-        fmt::format("In the cell {} to {}, {} to {}", format_dms(lat0, AngleKind::latitude, 3600),
-                    format_dms(lat0 + 1, AngleKind::latitude, 3600),
-                    format_dms(lon0, AngleKind::longitude, 3600),
-                    format_dms(lon0 + 1, AngleKind::longitude, 3600));
-  }
+  // The location diagram: the sheet among its index sheets and over its DEM, five sheet sizes
+  // across (whatever the scale), with parallels and meridians a reader can place.
+  const Box& sheet_ground = layout.frame.ground;
+  info.location_area = location_area(sheet_ground);
+  info.dem_footprint = dem_footprint(project);
+  auto graticule = location_graticule(crs, info.location_area, kLocationDiagramMm);
+  info.location_graticule = std::move(graticule.lines);
+  std::string index_caption = info.location_caption;
+  info.location_caption =
+      location_caption(crs, sheet_ground, graticule.step_arcsec, !info.index_outlines.empty(),
+                       !info.dem_footprint.empty());
+  if (!index_caption.empty()) info.location_caption = index_caption + ". " + info.location_caption;
   return info;
 }
 

@@ -80,12 +80,8 @@ Box draw_label(cairo_t* cr, text::FontCache& fonts, const style::LabelStyle& sty
   return draw_set_line(cr, line, style, align(line, anchor, h, v));
 }
 
-double draw_paragraph(cairo_t* cr, text::FontCache& fonts, const style::LabelStyle& style,
-                      const std::string& text, Point top_left, double width_mm, double size_pt,
-                      double leading) {
-  double size = size_pt > 0 ? size_pt : style.size_pt;
-  double line_h = size * kMmPerPt * leading;
-  double y = top_left.y + size * kMmPerPt * 0.8;
+std::vector<std::string> wrap_words(text::FontCache& fonts, const style::LabelStyle& style,
+                                    const std::string& text, double width_mm, double size_pt) {
   std::vector<std::string> words;
   std::string w;
   for (char c : text) {
@@ -98,12 +94,11 @@ double draw_paragraph(cairo_t* cr, text::FontCache& fonts, const style::LabelSty
     }
   }
   if (!w.empty()) words.push_back(w);
+  std::vector<std::string> lines;
   std::string current;
   auto flush = [&]() {
-    if (current.empty()) return;
-    draw_label(cr, fonts, style, current, {top_left.x, y}, HAlign::left, VAlign::baseline, size);
+    if (!current.empty()) lines.push_back(current);
     current.clear();
-    y += line_h;
   };
   for (const auto& word : words) {
     if (word == "\n") {
@@ -111,7 +106,7 @@ double draw_paragraph(cairo_t* cr, text::FontCache& fonts, const style::LabelSty
       continue;
     }
     std::string trial = current.empty() ? word : current + " " + word;
-    auto s = text::shape(fonts, style.font, size, trial, style.letter_spacing_em);
+    auto s = text::shape(fonts, style.font, size_pt, trial, style.letter_spacing_em);
     if (s.width_mm > width_mm && !current.empty()) {
       flush();
       current = word;
@@ -120,6 +115,19 @@ double draw_paragraph(cairo_t* cr, text::FontCache& fonts, const style::LabelSty
     }
   }
   flush();
+  return lines;
+}
+
+double draw_paragraph(cairo_t* cr, text::FontCache& fonts, const style::LabelStyle& style,
+                      const std::string& text, Point top_left, double width_mm, double size_pt,
+                      double leading) {
+  double size = size_pt > 0 ? size_pt : style.size_pt;
+  double line_h = size * kMmPerPt * leading;
+  double y = top_left.y + size * kMmPerPt * 0.8;
+  for (const auto& line : wrap_words(fonts, style, text, width_mm, size)) {
+    draw_label(cr, fonts, style, line, {top_left.x, y}, HAlign::left, VAlign::baseline, size);
+    y += line_h;
+  }
   return y - size * kMmPerPt * 0.8;
 }
 

@@ -49,6 +49,11 @@ Point align(const SetLine& line, Point anchor, HAlign h, VAlign v);
 Box draw_label(cairo_t* cr, text::FontCache& fonts, const style::LabelStyle& style,
                const std::string& text, Point anchor, HAlign h, VAlign v, double size_pt = 0);
 
+// Breaks `text` into lines no wider than `width_mm` at word boundaries (a single word longer
+// than the width stays whole on its own line); "\n" forces a break. Every word is kept.
+std::vector<std::string> wrap_words(text::FontCache& fonts, const style::LabelStyle& style,
+                                    const std::string& text, double width_mm, double size_pt);
+
 // Breaks `text` into lines no wider than `width_mm` (at word boundaries; a single long word
 // stays whole) and draws them from `top_left` down; returns the y below the last line.
 double draw_paragraph(cairo_t* cr, text::FontCache& fonts, const style::LabelStyle& style,

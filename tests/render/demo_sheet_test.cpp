@@ -15,6 +15,7 @@
 #include <qpdf/QPDFPageObjectHelper.hh>
 #include <regex>
 #include <set>
+#include <sstream>
 
 #include "render/render_support.hpp"
 #include "sheetmill/core/gdal_env.hpp"
@@ -72,6 +73,36 @@ TEST_CASE("the demo sheet embeds every font it uses", "[render]") {
     CHECK(std::regex_search(line, std::regex(R"(^[A-Z]{6}\+\S+ .* yes\s+yes\s+yes)")));
   }
   CHECK(font_lines > 0);
+}
+
+TEST_CASE("the demo sheet's collar is text and paths, its only images the relief", "[render]") {
+  // Cairo's PDF writer paints what it cannot express as vectors into fallback images; text in
+  // such an image is lost to pdftotext, search and copying. The collar words come from
+  // styles/field.yaml (legend entries) and the sheet's own furniture.
+  auto txt = test::run_command({"pdftotext", "-raw", demo_pdf().string(), "-"});
+  REQUIRE(txt.exit_code == 0);
+  for (const char* word : {"Legend", "Wood", "Orchard", "Marsh", "Scrub", "Lake, pond", "Main road",
+                           "Contour interval", "not a survey"}) {
+    INFO(word);
+    CHECK(txt.out.find(word) != std::string::npos);
+  }
+  // pdfimages -list: two header lines, then one line per image or soft mask. The relief is
+  // the only raster the sheet draws, with a smoothing filter, which Cairo writes as
+  // /Interpolate true (column "interp" yes); its fallback images are never interpolated.
+  auto list = test::run_command({"pdfimages", "-list", demo_pdf().string()});
+  REQUIRE(list.exit_code == 0);
+  std::istringstream lines(list.out);
+  std::string line;
+  int images = 0;
+  for (int i = 0; std::getline(lines, line); ++i) {
+    if (i < 2 || line.empty()) continue;
+    ++images;
+    INFO(line);
+    CHECK(std::regex_search(
+        line, std::regex(
+                  R"(^\s*\d+\s+\d+\s+(image|smask)\s+\d+\s+\d+\s+\w+\s+\d+\s+\d+\s+\w+\s+yes\s)")));
+  }
+  CHECK(images > 0);  // the relief itself
 }
 
 TEST_CASE("village names and index contour values are real text on the demo sheet", "[render]") {

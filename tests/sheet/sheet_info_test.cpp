@@ -4,6 +4,7 @@
 
 #include "sheetmill/core/error.hpp"
 #include "sheetmill/geomag/model.hpp"
+#include "sheetmill/sheet/dms.hpp"
 #include "sheetmill/sheet/layout.hpp"
 #include "sheetmill/sheet/sheet_crs.hpp"
 #include "support/test_env.hpp"
@@ -62,7 +63,12 @@ TEST_CASE("a declination stated by hand is used as stated", "[sheet]") {
   auto info = describe_sheet(p, compute_layout(p, style, std::nullopt));
   CHECK(*info.north.declination_deg == -2.5);
   CHECK(info.north.date == "2026-12-01");
-  CHECK(info.location_caption.find("47\u00B0 N") != std::string::npos);
+  // The location diagram places the sheet by its centre's latitude (PROJ as the oracle), and
+  // draws parallels and meridians over five sheet sizes around it.
+  Point c = SheetCrs::resolve(p.crs).to_lonlat({505000, 5204000});
+  CHECK(info.location_caption.find(format_dms(c.y, AngleKind::latitude, 1)) != std::string::npos);
+  CHECK(info.location_area.width() == Approx(5 * 10000));
+  CHECK(info.location_graticule.size() >= 4);
 }
 
 // The location diagram of a national-size index: the sheets around this one and the index's

@@ -23,8 +23,8 @@ void draw_area(cairo_t* cr, const std::vector<Polyline>& rings, const style::Are
 // signed distance k * spacing from the page origin along the hatch's normal.
 std::vector<std::pair<Point, Point>> hatch_segments(const Box& box, const style::Hatch& hatch);
 
-// Pattern anchor points covering `box` (page mm): column i, row j at (i sx, j sy), odd rows
-// shifted by sx / 2 when staggered.
+// Pattern anchor points strictly inside `box` (page mm): column i, row j at (i sx, j sy), odd
+// rows shifted by sx / 2 when staggered.
 std::vector<Point> pattern_points(const Box& box, const style::PatternFill& pattern);
 
 }  // namespace sheetmill::draw

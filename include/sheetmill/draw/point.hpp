@@ -23,6 +23,10 @@ void draw_point_symbol(cairo_t* cr, Point at_mm, const style::PointSymbol& symbo
 // ink included. 0 for a symbol with no parts.
 double point_symbol_radius_mm(const style::PointSymbol& symbol);
 
+// The page box (mm, relative to the anchor) of the symbol's ink at `rotation_deg`, as Cairo
+// measures it (fill and stroke extents, caps and joins included). Uses `cr` only to measure.
+Box point_symbol_ink_box_mm(cairo_t* cr, const style::PointSymbol& symbol, double rotation_deg);
+
 // The rotation to use for a feature: the attribute value (degrees clockwise from sheet north)
 // when the symbol names a field and the value parses, else the symbol's fixed rotation.
 double symbol_rotation_deg(const style::PointSymbol& symbol, const std::string* field_value);

@@ -22,6 +22,10 @@ struct Source {
   bool required = true;  // missing required source = error; optional = warning
 };
 
+// The paper name of `paper: {size: fit}`: the layout picks the smallest ISO A size that holds
+// the frame (sheet::fitting_paper); width and height stay 0 until then.
+inline constexpr const char* kFitPaper = "fit";
+
 struct Paper {
   std::string name;     // "A1", "ARCH E", "custom"
   double width_mm = 0;  // after orientation is applied
@@ -98,7 +102,8 @@ struct Project {
   std::string crs;                        // sheet CRS as the user wrote it (EPSG:32633)
   double scale = 25000;                   // N of 1:N
   Paper paper;
-  std::optional<double> margin_mm;  // override of the style's margins
+  std::optional<double> margin_mm;      // override of the style's margins
+  std::vector<std::string> scale_bars;  // "m", "ft", "mi", one bar each; empty: automatic
   Extent extent;
   std::filesystem::path style;
   Elevation elevation;

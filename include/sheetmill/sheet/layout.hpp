@@ -27,20 +27,31 @@ struct Layout {
   Box collar_box_mm;           // map box grown by the collar: grid labels live between the two
   Box title_box_mm;
   Box legend_box_mm;
-  Box scale_box_mm;  // scale bars and representative fraction
+  Box scale_box_mm;  // scale bars and representative fraction: a band under the collar box
   Box north_box_mm;  // true, grid and magnetic north diagram
   Box notes_box_mm;
-  Box diagrams_box_mm;                    // adjoining sheets and location diagrams
+  Box diagrams_box_mm;        // adjoining sheets and location diagrams
+  Box panel_box_mm;           // the furniture panel (title to diagrams), packed by the collar
+  bool panel_at_side = true;  // right of the map; otherwise under it
+  Box sheet_frame_mm;         // the outer frame: encloses collar box, scale band and panel
   bool neatline_is_graticule = false;     // the neatline follows meridians and parallels
   std::optional<IndexSheet> index_sheet;  // the tile-index sheet this layout frames, if any
 };
 
-// The paper as the layout uses it: the project's (already oriented) paper.
+// The paper as the layout uses it: the project's (already oriented) paper, or, when the project
+// asks for paper that fits (size: fit), the smallest ISO A size (A4 up to A0, either
+// orientation) that holds frame, collar, scale band and panel (see fitting_paper).
 Layout compute_layout(const project::Project& project, const style::Style& style,
                       const std::optional<std::string>& sheet_id);
 
 // The same, with the tile index already read (batch renders read it once).
 Layout compute_layout(const project::Project& project, const style::Style& style,
                       const std::optional<std::string>& sheet_id, const TileIndexContents* index);
+
+// The smallest ISO A paper (A4 to A0, portrait or landscape, smaller area first) on which the
+// frame at 1:N fits with its collar, scale band and panel. Throws Error(input) when not even A0
+// holds it.
+project::Paper fitting_paper(const project::Project& project, const style::Style& style,
+                             const Box& ground);
 
 }  // namespace sheetmill::sheet

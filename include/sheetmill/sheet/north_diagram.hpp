@@ -20,8 +20,8 @@ struct NorthDrawing {
   double magnetic_deg = 0;
   bool exaggerated = false;
 };
-// Angles under `min_deg` (and lines closer than that to each other) are opened out to it,
-// keeping their sides.
+// Lines closer than `min_deg` to grid north or to each other are opened out to it, keeping
+// their order and sides; lines at the same true angle stay together.
 NorthDrawing north_drawing(const NorthInfo& north, double min_deg = 7);
 
 void draw_north_diagram(cairo_t* cr, const Box& box, const NorthInfo& north,

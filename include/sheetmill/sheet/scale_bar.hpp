@@ -46,7 +46,20 @@ std::string representative_fraction(double scale_denominator);
 Box draw_scale_bar(cairo_t* cr, const ScaleBarPlan& plan, Point zero_mm, const style::Style& style,
                    text::FontCache& fonts);
 
-// The scale box: the representative fraction, then one bar per unit.
+// The imperial bar that suits 1:N in `max_length_mm`: miles when two whole miles fit, else feet.
+std::string imperial_unit(double scale_denominator, double max_length_mm);
+
+// The bars a sheet carries: the project's `stated` list when not empty; otherwise metres, and
+// an imperial bar too when heights are not in metres (`height_unit_m` != 1).
+std::vector<std::string> scale_bar_units(const std::vector<std::string>& stated,
+                                         double height_unit_m, double scale_denominator,
+                                         double max_length_mm);
+
+// The bar length the scale panel allows in a box `width_mm` wide (room for the extension's and
+// the unit's labels), at most 160 mm.
+double scale_bar_room_mm(double width_mm);
+
+// The scale box: the representative fraction, then one bar per unit, all with one zero.
 void draw_scale_panel(cairo_t* cr, const Box& box, double scale_denominator,
                       const std::vector<std::string>& units, const style::Style& style,
                       text::FontCache& fonts);

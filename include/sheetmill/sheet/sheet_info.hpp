@@ -14,6 +14,7 @@
 #include "sheetmill/core/geometry.hpp"
 #include "sheetmill/project/project.hpp"
 #include "sheetmill/sheet/layout.hpp"
+#include "sheetmill/sheet/sheet_contents.hpp"
 #include "sheetmill/sheet/tile_index.hpp"
 
 namespace sheetmill::sheet {
@@ -46,8 +47,11 @@ struct SheetInfo {
   std::string sheet_name;
   std::vector<AdjoiningSheet> neighbours;
   std::vector<std::vector<Point>> index_outlines;  // every index sheet, ground (location diagram)
-  std::string location_caption;   // what index_outlines shows ("Sheets of the index", ...)
-  double contour_interval_m = 0;  // 0: no contours on this sheet
+  std::string location_caption;                    // what the location diagram shows
+  Box location_area;                 // ground the location diagram covers (five sheet sizes across)
+  std::vector<Point> dem_footprint;  // the DEM's outline, ground; empty: none
+  std::vector<Polyline> location_graticule;  // parallels and meridians over location_area
+  double contour_interval_m = 0;             // 0: no contours on this sheet
   // The unit heights and the interval are shown in (the DEM's vertical unit).
   double height_unit_m = 1;
   std::string height_unit_symbol = "m";
@@ -61,8 +65,11 @@ struct SheetInfo {
   std::string projection_name;
   int epsg = 0;
   double grid_interval_m = 0;
-  std::vector<std::string> scale_bar_units{"m"};  // "m", "ft", "mi", one bar each
+  // The project's stated bars ("m", "ft", "mi"); empty: metres, and an imperial bar too when
+  // heights are not in metres (sheet::scale_bar_units).
+  std::vector<std::string> scale_bar_units;
   NorthInfo north;
+  SheetContents shown;  // what the render drew on the map face (for the legend)
 };
 
 // What the location diagram shows of a tile index: the whole index up to kLocationWholeIndex
