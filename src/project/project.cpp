@@ -195,8 +195,29 @@ Project load_project(const std::filesystem::path& path) {
   if (auto c = root.find("credits")) p.data_credits = read_strings(*c);
   if (auto n = root.find("notes")) p.notes = read_strings(*n);
   p.crs = root.at("crs").as_string();
-                    "vector_data", "tile_index", "magnetic",  "accuracy", "output",
-                    "scale_bars"});
+  p.scale = root.at("scale").as_scale();
+  // A series sheet without stated paper gets paper that fits it.
+  if (root.has("paper") || !root.has("tile_index"))
+    p.paper = read_paper(root.at("paper"));
+  else
+    p.paper.name = kFitPaper;
+  if (auto m = root.find("margin")) {
+    p.margin_mm = m->as_length_mm();
+    // The map face needs some paper: margins take at most 45% of the shorter side each (paper
+    // that fits the sheet is chosen later, with the margin inside it).
+    if (p.paper.name != kFitPaper) {
+      double most_mm = 0.45 * std::min(p.paper.width_mm, p.paper.height_mm);
+      if (!(p.margin_mm >= 0 && p.margin_mm <= most_mm)) {
+        m->fail_expected(fmt::format(
+            "a margin from 0mm to {:g}mm (45% of the paper's shorter side)", most_mm));
+      }
+    } else if (!(p.margin_mm >= 0)) {
+      m->fail_expected("a margin of 0mm or more");
+    }
+  }
+  if (auto b = root.find("scale_bars")) {
+    for (const auto& item : b->items()) p.scale_bars.push_back(item.as_choice({"m", "ft", "mi"}));
+    if (p.scale_bars.empty()) b->fail_expected("a list of scale-bar units (m, ft, mi)");
   }
   p.extent = read_extent(root.at("extent"));
   p.style = root.at("style").as_path();
