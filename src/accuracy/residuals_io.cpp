@@ -52,6 +52,7 @@ void write_gpkg(const Assessment& a, const std::filesystem::path& out) {
   GDALDriver* drv = GetGDALDriverManager()->GetDriverByName("GPKG");
   if (!drv) throw_internal_error("GDAL has no GeoPackage driver");
   AtomicOutput file(out);
+  file.clear_temp_for_writer();  // the GeoPackage driver will not create over an existing file
   {
     DatasetPtr ds(drv->Create(file.temp_path().c_str(), 0, 0, 0, GDT_Unknown, nullptr));
     if (!ds)

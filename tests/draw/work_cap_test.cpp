@@ -33,8 +33,9 @@ TEST_CASE("a pattern or hatching beyond the per-feature cap is refused, not gene
         "generate on a sheet; widen the pattern spacing");
   style::PatternFill usual;
   usual.spacing_x_mm = usual.spacing_y_mm = 2.5;
-  // (841 / 2.5 + 1) x (1189 / 2.5 + 1) anchor points: 338 x 477 with the end columns.
-  CHECK(pattern_points(a0, usual).size() == 338u * 477u);
+  // Anchor points strictly inside the box, at multiples of the spacing: x = 2.5 k with
+  // 0 < x < 841 gives k = 1..336, y = 2.5 k with 0 < y < 1189 gives k = 1..475.
+  CHECK(pattern_points(a0, usual).size() == 336u * 475u);
   // Hatching at 0.1mm across a box of 1e6 mm (a feature left unclipped): 1.4e7 lines.
   style::Hatch hatch;
   hatch.spacing_mm = 0.1;
