@@ -103,10 +103,14 @@ std::string describe_parse_error(const CLI::ParseError& e, const std::string& co
       auto at = what.find(" is required");
       if (at != std::string::npos) what = "missing " + what.substr(0, at);
     }
-  } else if (name == "ExtrasError") {
+  } else if (name == "ExtrasError" || what.rfind("The following argument", 0) == 0) {
     auto colon = what.find(": ");
-    if (colon != std::string::npos)
-      what = "unexpected argument " + in_quotes(what.substr(colon + 2));
+    if (colon != std::string::npos) {
+      const std::string rest = what.substr(colon + 2);
+      what =
+          (rest.find(' ') == std::string::npos ? "unexpected argument " : "unexpected arguments ") +
+          in_quotes(rest);
+    }
   } else if (name == "ConversionError") {
     what = "a value could not be read: " + what;
   }

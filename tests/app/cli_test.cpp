@@ -85,7 +85,8 @@ TEST_CASE("a project's scale may be a representative fraction", "[app]") {
   fs::path bad = demo_project_copy(tmp, "scale: 25000", "scale: \"1:0\"");
   auto r = test::run_sheetmill({"check", bad.string()});
   CHECK(r.exit_code == 2);
-  CHECK(r.err.find("scale: expected a scale as a representative fraction") != std::string::npos);
+  CHECK(r.err.find("scale: expected a scale from 1:1 to 1:100 000 000 such as 1:25000") !=
+        std::string::npos);
   // The index and contours commands read the same forms.
   auto index = test::run_sheetmill({"index", (tmp / "t.gpkg").string(), "--crs", "EPSG:32632",
                                     "--scale", "1:25 000", "--frame", "400x300mm", "--extent",

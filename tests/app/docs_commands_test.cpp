@@ -29,7 +29,8 @@ std::vector<std::string> words(const std::string& text) {
 // Option words of a command line or synopsis: "--dpi", "--sheet=X" -> "--sheet", "[--force]".
 std::vector<std::string> option_words(const std::string& text) {
   std::vector<std::string> out;
-  std::regex opt(R"((^|[\s\[|(])(--?[a-z][a-z0-9-]*))");
+  // A short option is one letter ("-j2" is -j with its value).
+  std::regex opt(R"((^|[\s\[|(])(--[a-z][a-z0-9-]*|-[a-zA-Z]))");
   for (auto it = std::sregex_iterator(text.begin(), text.end(), opt); it != std::sregex_iterator();
        ++it) {
     out.push_back((*it)[2]);

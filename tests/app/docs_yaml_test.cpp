@@ -36,6 +36,17 @@ TEST_CASE("every YAML example in docs/ (besides style.md) loads", "[app][docs]")
         CHECK_NOTHROW(exhibit::load_exhibit_project(file));
       } else if (has_key(t, "title") && has_key(t, "crs")) {
         CHECK_NOTHROW(project::load_project(file));
+      } else if (std::regex_search(t, std::regex("^(accuracy|elevation|contours|magnetic|output|"
+                                                 "tile_index|sources|paper|extent):"))) {
+        // A section of a project file: inside a minimal project (with a DEM when the section
+        // is not the elevation itself, since accuracy needs one).
+        std::string project =
+            "title: T\ncrs: EPSG:32632\nscale: 25000\nstyle: s.yaml\n" +
+            std::string(has_key(t, "paper") ? "" : "paper: {size: A4}\n") +
+            std::string(has_key(t, "extent") ? "" : "extent: {centre: [480500, 5197600]}\n") +
+            std::string(has_key(t, "elevation") ? "" : "elevation: {dem: dem.tif}\n") + t;
+        test::write_text(file, project);
+        CHECK_NOTHROW(project::load_project(file));
       } else {
         FAIL("a YAML example of a kind this test does not know: teach it the reader");
       }
