@@ -12,7 +12,8 @@
 #include "sheetmill/core/log.hpp"
 
 extern "C" int LLVMFuzzerTestOneInput(const std::uint8_t* data, std::size_t size) {
-  static bool ready = (sheetmill::gdal_init(), sheetmill::log::set_level(sheetmill::log::Level::quiet), true);
+  static bool ready =
+      (sheetmill::gdal_init(), sheetmill::log::set_level(sheetmill::log::Level::quiet), true);
   (void)ready;
   const char* path = "/vsimem/fuzz-index.geojson";
   VSILFILE* f = VSIFileFromMemBuffer(path, const_cast<GByte*>(data), size, FALSE);

@@ -9,8 +9,8 @@
 
 #include "app/commands.hpp"
 #include "app/option_checks.hpp"
-#include "sheetmill/core/file_format.hpp"
 #include "sheetmill/core/atomic_file.hpp"
+#include "sheetmill/core/file_format.hpp"
 #include "sheetmill/terrain/raster_products.hpp"
 #include "sheetmill/terrain/tint.hpp"
 

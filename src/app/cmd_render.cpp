@@ -2,8 +2,8 @@
 
 #include "app/commands.hpp"
 #include "app/option_checks.hpp"
-#include "sheetmill/core/file_format.hpp"
 #include "sheetmill/core/atomic_file.hpp"
+#include "sheetmill/core/file_format.hpp"
 #include "sheetmill/core/log.hpp"
 #include "sheetmill/core/plural.hpp"
 #include "sheetmill/project/project.hpp"

@@ -7,7 +7,6 @@
 
 #include "config/yaml_limits.hpp"
 #include "sheetmill/config/bounds.hpp"
-
 #include "sheetmill/core/scale_text.hpp"
 
 namespace sheetmill::config {

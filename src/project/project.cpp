@@ -181,11 +181,10 @@ std::vector<std::string> read_strings(const ConfigNode& n) {
 
 Project load_project(const std::filesystem::path& path) {
   ConfigNode root = config::load_file(path);
-  root.expect_keys({"title",       "subtitle",   "producer",  "revision", "credits",
-                    "notes",       "crs",        "scale",     "paper",    "margin",
-                    "extent",      "style",      "elevation", "contours", "sources",
-                    "vector_data", "tile_index", "magnetic",  "accuracy", "output",
-                    "scale_bars"});
+  root.expect_keys({"title",     "subtitle", "producer",  "revision",    "credits",    "notes",
+                    "crs",       "scale",    "paper",     "margin",      "extent",     "style",
+                    "elevation", "contours", "sources",   "vector_data", "tile_index", "magnetic",
+                    "accuracy",  "output",   "scale_bars"});
   Project p;
   p.file = path;
   p.title = root.at("title").as_string();
@@ -208,8 +207,8 @@ Project load_project(const std::filesystem::path& path) {
     if (p.paper.name != kFitPaper) {
       double most_mm = 0.45 * std::min(p.paper.width_mm, p.paper.height_mm);
       if (!(p.margin_mm >= 0 && p.margin_mm <= most_mm)) {
-        m->fail_expected(fmt::format(
-            "a margin from 0mm to {:g}mm (45% of the paper's shorter side)", most_mm));
+        m->fail_expected(
+            fmt::format("a margin from 0mm to {:g}mm (45% of the paper's shorter side)", most_mm));
       }
     } else if (!(p.margin_mm >= 0)) {
       m->fail_expected("a margin of 0mm or more");

@@ -69,7 +69,7 @@ TEST_CASE("project errors name file, line:column, key path and what was expected
         p + ":7:1: scael: unknown key 'scael'; did you mean 'scale'?");
   CHECK(load_error(dir, "title: T\ncrs: EPSG:32632\nscale: big\n") ==
         p + ":3:8: scale: expected a scale from 1:1 to 1:100 000 000 such as 1:25000, 1:25 000 "
-                "or 25000, got \"big\"");
+            "or 25000, got \"big\"");
   CHECK(load_error(dir, "title: T\ncrs: EPSG:1\nscale: 1000\npaper: {size: B9}\n") ==
         p + ":4:15: paper.size: unknown paper size 'B9' (known: A0, A1, A2, A3, A4, ANSI A, "
             "ANSI B, ANSI C, ANSI D, ANSI E, ARCH A, ARCH B, ARCH C, ARCH D, ARCH E, ARCH E1, or "

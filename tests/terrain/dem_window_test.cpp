@@ -227,11 +227,12 @@ TEST_CASE("the relief raster commands refuse a DEM beyond their bound before wri
   auto plane = plane_tif(tmp);
   auto vrt = tmp / "huge.vrt";
   sheetmill::test::write_text(
-      vrt, "<VRTDataset rasterXSize=\"1000000\" rasterYSize=\"1000000\">\n"
-           "  <SRS>EPSG:32633</SRS>\n"
-           "  <GeoTransform>440000, 0.004, 0, 6650000, 0, -0.003</GeoTransform>\n"
-           "  <VRTRasterBand dataType=\"Float32\" band=\"1\"/>\n"
-           "</VRTDataset>\n");
+      vrt,
+      "<VRTDataset rasterXSize=\"1000000\" rasterYSize=\"1000000\">\n"
+      "  <SRS>EPSG:32633</SRS>\n"
+      "  <GeoTransform>440000, 0.004, 0, 6650000, 0, -0.003</GeoTransform>\n"
+      "  <VRTRasterBand dataType=\"Float32\" band=\"1\"/>\n"
+      "</VRTDataset>\n");
   try {
     DemSource source(vrt.string());
     FAIL("expected the DEM to be refused");

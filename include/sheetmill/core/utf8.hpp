@@ -3,8 +3,8 @@
 //
 // A message goes to a terminal: raw control characters could move the cursor or hide text, and
 // bidirectional overrides (U+202E) make two different IDs look the same or a harmless one look
-// like another. quote_untrusted() shows every such character as an escape, so that what is printed is
-// exactly what the data holds, on one line, and nothing in it acts on the terminal.
+// like another. quote_untrusted() shows every such character as an escape, so that what is printed
+// is exactly what the data holds, on one line, and nothing in it acts on the terminal.
 
 #include <cstddef>
 #include <cstdint>
