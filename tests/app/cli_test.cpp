@@ -135,7 +135,9 @@ TEST_CASE("counts in the log take the right number", "[app]") {
 }
 
 TEST_CASE("check lists what render would draw and fails where render fails", "[app]") {
-  auto ok = test::run_sheetmill({"check", demo_project()});
+  test::TempDir demo("cli-check-demo");
+  auto ok = test::run_sheetmill({"check", demo_project_copy(demo).string()});
+  INFO(ok.err);
   REQUIRE(ok.exit_code == 0);
   // The eleven layers of styles/field.yaml, each with its feature count.
   for (const char* layer :
