@@ -15,6 +15,7 @@
 #include "sheetmill/sheet/legend.hpp"
 #include "sheetmill/sheet/north_diagram.hpp"
 #include "sheetmill/sheet/scale_bar.hpp"
+#include "support/raster_compare.hpp"
 #include "support/test_env.hpp"
 
 using namespace sheetmill;
@@ -24,39 +25,9 @@ namespace {
 
 constexpr double kMaxMeanDiff = 1.0;
 constexpr double kMaxChangedFraction = 0.002;
-constexpr int kChangedThreshold = 40;
-
-struct Diff {
-  double mean = 0;
-  double changed_fraction = 0;
-};
-
-Diff compare_png(const std::filesystem::path& a, const std::filesystem::path& b) {
-  CairoSurfacePtr sa(cairo_image_surface_create_from_png(a.c_str()));
-  CairoSurfacePtr sb(cairo_image_surface_create_from_png(b.c_str()));
-  REQUIRE(cairo_surface_status(sa.get()) == CAIRO_STATUS_SUCCESS);
-  REQUIRE(cairo_surface_status(sb.get()) == CAIRO_STATUS_SUCCESS);
-  const int w = cairo_image_surface_get_width(sa.get()),
-            h = cairo_image_surface_get_height(sa.get());
-  REQUIRE(w == cairo_image_surface_get_width(sb.get()));
-  REQUIRE(h == cairo_image_surface_get_height(sb.get()));
-  const unsigned char* da = cairo_image_surface_get_data(sa.get());
-  const unsigned char* db = cairo_image_surface_get_data(sb.get());
-  const int stride = cairo_image_surface_get_stride(sa.get());
-  double sum = 0;
-  long changed = 0;
-  for (int y = 0; y < h; ++y)
-    for (int x = 0; x < w; ++x) {
-      int worst = 0;
-      for (int c = 0; c < 3; ++c) {
-        int d = std::abs(da[y * stride + 4 * x + c] - db[y * stride + 4 * x + c]);
-        sum += d;
-        worst = std::max(worst, d);
-      }
-      changed += worst > kChangedThreshold;
-    }
-  return {sum / (3.0 * w * h), static_cast<double>(changed) / (static_cast<double>(w) * h)};
-}
+// Compared by test::compare_png (tests/support/raster_compare.hpp), the suites' one diff.
+using test::compare_png;
+using Diff = test::RasterDiff;
 
 // Draws `scene` on a w x h mm PDF page and rasterises it; returns the PNG.
 std::filesystem::path rasterise(const test::TempDir& tmp, const std::string& name, double w_mm,
