@@ -15,6 +15,7 @@
 #include "sheetmill/core/atomic_file.hpp"
 #include "sheetmill/core/error.hpp"
 #include "sheetmill/core/log.hpp"
+#include "sheetmill/geomag/model.hpp"
 #include "sheetmill/project/project.hpp"
 #include "sheetmill/render/render.hpp"
 #include "sheetmill/sheet/tile_index.hpp"
@@ -90,13 +91,18 @@ int run_batch_command(const BatchRequest& req) {
     auto index = std::make_shared<sheet::TileIndexContents>(
         sheet::read_tile_index(*project.tile_index, project.crs));
     auto fonts = std::make_shared<text::FontCache>();
+    // The magnetic model likewise (a stated declination needs none).
+    std::shared_ptr<const geomag::Model> model;
+    if (!project.magnetic.declination_deg && project.magnetic.model_file)
+      model = std::make_shared<geomag::Model>(geomag::Model::load(*project.magnetic.model_file));
     SheetTasks tasks;
     tasks.digest = [digester](const SheetJob& j) { return digester->digest(j); };
-    tasks.render = [&project, &style, index, fonts](const SheetJob& j) {
+    tasks.render = [&project, &style, index, fonts, model](const SheetJob& j) {
       render::RenderOptions options;
       options.sheet_id = j.id;
       options.tile_index = index.get();
       options.fonts = fonts.get();
+      options.magnetic_model = model.get();
       return render::render_sheet(project, style, j.output, options);
     };
     return tasks;

@@ -1,15 +1,14 @@
 #include "sheetmill/exhibit/exhibit_layout.hpp"
 
 #include <fmt/format.h>
-#include <ogr_spatialref.h>
 
 #include <algorithm>
 #include <cmath>
 
 #include "sheetmill/core/error.hpp"
-#include "sheetmill/core/gdal_env.hpp"
 #include "sheetmill/core/units.hpp"
 #include "sheetmill/sheet/paper_sizes.hpp"
+#include "sheetmill/sheet/sheet_crs.hpp"
 
 namespace sheetmill::exhibit {
 
@@ -21,22 +20,17 @@ double tidy_scale(double exact) {
 
 namespace {
 
+// The sheet CRS through the one shared type (sheet/sheet_crs.hpp), located in the project file.
 void set_crs(MapFrame& frame, const ExhibitProject& project) {
-  gdal_init();
-  OGRSpatialReference srs;
-  if (srs.SetFromUserInput(project.crs.c_str()) != OGRERR_NONE) {
-    throw_input_error(SourceLocation{project.file.string(), 0, 0, "crs"},
-                      "not a CRS GDAL/PROJ can read: \"" + project.crs + "\"");
+  try {
+    const sheet::SheetCrs crs = sheet::SheetCrs::resolve(project.crs, "crs");
+    frame.crs_wkt = crs.wkt2();
+    frame.crs_name = crs.name();
+    frame.epsg = crs.epsg();
+  } catch (const Error& e) {
+    if (e.kind() != Error::Kind::input) throw;
+    throw_input_error(SourceLocation{project.file.string(), 0, 0, "crs"}, e.message());
   }
-  if (!srs.IsProjected()) {
-    throw_input_error(SourceLocation{project.file.string(), 0, 0, "crs"},
-                      "expected a projected CRS (metres), got \"" + project.crs + "\"");
-  }
-  frame.crs_wkt = crs_wkt(srs, "WKT2_2019");
-  frame.crs_name = srs.GetName() ? srs.GetName() : project.crs;
-  const char* code = srs.GetAuthorityCode(nullptr);
-  const char* auth = srs.GetAuthorityName(nullptr);
-  frame.epsg = code && auth && std::string(auth) == "EPSG" ? std::atoi(code) : 0;
 }
 
 }  // namespace

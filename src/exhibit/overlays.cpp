@@ -293,16 +293,18 @@ CalloutReport draw_callouts(cairo_t* cr, const std::vector<Place>& places, const
 
 }  // namespace
 
-CalloutReport draw_overlays(cairo_t* cr, const ExhibitProject& project, const MapFrame& frame,
-                            const OverlayData& data, const TypeScale& type,
-                            text::FontCache& fonts) {
-  const double f = type.factor;
-  const Box map = frame.page_box_mm();
-  cairo_save(cr);
+namespace {
+
+const Colour kWater{0.16, 0.45, 0.70, 1};
+
+void clip_to_map(cairo_t* cr, const Box& map) {
   cairo_rectangle(cr, map.min_x, map.min_y, map.width(), map.height());
   cairo_clip(cr);
   cairo_set_line_join(cr, CAIRO_LINE_JOIN_ROUND);
-  const Colour water{0.16, 0.45, 0.70, 1};
+  cairo_set_line_cap(cr, CAIRO_LINE_CAP_ROUND);
+}
+
+void draw_water(cairo_t* cr, const ExhibitProject& project, const OverlayData& data, double f) {
   for (const PageArea& a : data.water_areas) {
     path_rings(cr, a.rings);
     cairo_set_fill_rule(cr, CAIRO_FILL_RULE_EVEN_ODD);
@@ -310,33 +312,40 @@ CalloutReport draw_overlays(cairo_t* cr, const ExhibitProject& project, const Ma
       set_rgba(cr, *project.relief.water_shade, 0.55);  // soft: the relief shows through
       cairo_fill_preserve(cr);
     }
-    set_rgba(cr, water);
+    set_rgba(cr, kWater);
     cairo_set_line_width(cr, 0.45 * f);
     cairo_stroke(cr);
   }
   if (!data.water_lines.empty()) {
     path_lines(cr, data.water_lines);
-    set_rgba(cr, water);
+    set_rgba(cr, kWater);
     cairo_set_line_width(cr, 0.8 * f);
     cairo_set_line_cap(cr, CAIRO_LINE_CAP_ROUND);
     cairo_stroke(cr);
   }
-  if (!data.roads.empty()) {
-    path_lines(cr, data.roads);
-    cairo_set_source_rgba(cr, 1, 1, 1, 0.9);
-    cairo_set_line_width(cr, 1.8 * f);
-    cairo_set_line_cap(cr, CAIRO_LINE_CAP_ROUND);
-    cairo_stroke_preserve(cr);
-    cairo_set_source_rgb(cr, 0.33, 0.31, 0.30);
-    cairo_set_line_width(cr, 0.9 * f);
-    cairo_stroke(cr);
-  }
-  if (project.dim_outside > 0) {
-    cairo_set_fill_rule(cr, CAIRO_FILL_RULE_EVEN_ODD);
-    for (const PageArea& a : data.veil) path_rings(cr, a.rings);
-    cairo_set_source_rgba(cr, 1, 1, 1, project.dim_outside);
-    cairo_fill(cr);
-  }
+}
+
+void draw_roads(cairo_t* cr, const OverlayData& data, double f) {
+  if (data.roads.empty()) return;
+  path_lines(cr, data.roads);
+  cairo_set_source_rgba(cr, 1, 1, 1, 0.9);
+  cairo_set_line_width(cr, 1.8 * f);
+  cairo_set_line_cap(cr, CAIRO_LINE_CAP_ROUND);
+  cairo_stroke_preserve(cr);
+  cairo_set_source_rgb(cr, 0.33, 0.31, 0.30);
+  cairo_set_line_width(cr, 0.9 * f);
+  cairo_stroke(cr);
+}
+
+void draw_veil(cairo_t* cr, const ExhibitProject& project, const OverlayData& data) {
+  if (!(project.dim_outside > 0)) return;
+  cairo_set_fill_rule(cr, CAIRO_FILL_RULE_EVEN_ODD);
+  for (const PageArea& a : data.veil) path_rings(cr, a.rings);
+  cairo_set_source_rgba(cr, 1, 1, 1, project.dim_outside);
+  cairo_fill(cr);
+}
+
+void draw_areas(cairo_t* cr, const ExhibitProject& project, const OverlayData& data, double f) {
   for (std::size_t i = 0; i < data.areas.size(); ++i) {
     const AreaOverlay& style = project.areas[i];
     cairo_new_path(cr);
@@ -353,9 +362,37 @@ CalloutReport draw_overlays(cairo_t* cr, const ExhibitProject& project, const Ma
     cairo_stroke(cr);
     cairo_set_dash(cr, nullptr, 0, 0);
   }
-  CalloutReport rep = draw_callouts(cr, data.places, map, type, fonts);
-  cairo_restore(cr);
+}
+
+}  // namespace
+
+CalloutReport draw_overlay_groups(const OverlayTarget& target, const ExhibitProject& project,
+                                  const MapFrame& frame, const OverlayData& data,
+                                  const TypeScale& type, text::FontCache& fonts) {
+  const double f = type.factor;
+  const Box map = frame.page_box_mm();
+  CalloutReport rep;
+  auto group = [&](const char* name, auto&& body) {
+    cairo_t* cr = target.begin(name);
+    cairo_save(cr);
+    clip_to_map(cr, map);
+    body(cr);
+    cairo_restore(cr);
+    target.end();
+  };
+  group("water", [&](cairo_t* cr) { draw_water(cr, project, data, f); });
+  group("roads", [&](cairo_t* cr) { draw_roads(cr, data, f); });
+  group("veil", [&](cairo_t* cr) { draw_veil(cr, project, data); });
+  group("areas", [&](cairo_t* cr) { draw_areas(cr, project, data, f); });
+  group("places", [&](cairo_t* cr) { rep = draw_callouts(cr, data.places, map, type, fonts); });
   return rep;
+}
+
+CalloutReport draw_overlays(cairo_t* cr, const ExhibitProject& project, const MapFrame& frame,
+                            const OverlayData& data, const TypeScale& type,
+                            text::FontCache& fonts) {
+  OverlayTarget one{[cr](const char*) { return cr; }, [] {}};
+  return draw_overlay_groups(one, project, frame, data, type, fonts);
 }
 
 }  // namespace sheetmill::exhibit

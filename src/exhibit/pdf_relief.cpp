@@ -144,8 +144,10 @@ void paint_relief_placeholders(cairo_t* cr, const ReliefPlan& plan, const Box& c
     // where strip i + 1 begins, both computed from the same row index.
     cairo_translate(cr, plan.origin_mm.x, plan.origin_mm.y + s.row0 * plan.px_mm);
     cairo_scale(cr, plan.grid.width * plan.px_mm / kTagW, s.rows * plan.px_mm / kTagH);
+    // No NEAREST filter: replayed from the canvas's recording (page mm), Cairo clips a
+    // nearest-filtered image to its extents rounded to whole millimetres, which cuts rows off
+    // the strips' edges. The swapped-in strips carry their own /Interpolate.
     cairo_set_source_surface(cr, tag.get(), 0, 0);
-    cairo_pattern_set_filter(cairo_get_source(cr), CAIRO_FILTER_NEAREST);
     cairo_paint(cr);
     cairo_restore(cr);
   }

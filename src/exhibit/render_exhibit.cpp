@@ -1,7 +1,5 @@
 #include "sheetmill/exhibit/render_exhibit.hpp"
 
-#include <cairo-pdf.h>
-
 #include <algorithm>
 #include <chrono>
 #include <cmath>
@@ -20,6 +18,8 @@
 #include "sheetmill/exhibit/png_strip_writer.hpp"
 #include "sheetmill/exhibit/ramps.hpp"
 #include "sheetmill/exhibit/relief_strips.hpp"
+#include "sheetmill/pdf/layered_canvas.hpp"
+#include "sheetmill/pdf/registration.hpp"
 
 namespace sheetmill::exhibit {
 
@@ -37,74 +37,98 @@ terrain::TintRamp ramp_for(const ExhibitProject& project, const MapFrame& frame)
   return fit_ramp(shipped_ramp(project.relief.ramp_name), range.first, range.second);
 }
 
-// Everything but the relief, in page millimetres, recorded once and replayed onto each target.
+// Everything but the relief, in page millimetres: the overlays, each in its named layer, then
+// the frame and the furniture.
 struct Composition {
-  CairoSurfacePtr recording;
   ColourBarReport colour_bar;
   CalloutReport callouts;
 };
 
-Composition compose(const ExhibitProject& project, const ExhibitLayout& layout,
-                    const terrain::TintRamp& ramp) {
+Composition compose(const OverlayTarget& target, const ExhibitProject& project,
+                    const ExhibitLayout& layout, const terrain::TintRamp& ramp) {
   Composition c;
-  cairo_rectangle_t extents{0, 0, layout.page_w_mm, layout.page_h_mm};
-  c.recording.reset(cairo_recording_surface_create(CAIRO_CONTENT_COLOR_ALPHA, &extents));
-  CairoPtr cr(cairo_create(c.recording.get()));
-  check_cairo(cairo_status(cr.get()), "exhibit composition");
   text::FontCache fonts;
   OverlayData data = read_overlays(project, layout.frame);
-  c.callouts = draw_overlays(cr.get(), project, layout.frame, data, layout.type, fonts);
+  c.callouts = draw_overlay_groups(target, project, layout.frame, data, layout.type, fonts);
+  cairo_t* cr = target.begin("furniture");
   const Box& m = layout.map_box_mm;
-  cairo_set_source_rgb(cr.get(), 0.1, 0.1, 0.1);
-  cairo_set_line_width(cr.get(), 0.6 * layout.type.factor);
-  cairo_rectangle(cr.get(), m.min_x, m.min_y, m.width(), m.height());
-  cairo_stroke(cr.get());
-  draw_title(cr.get(), layout, project, fonts);
-  c.colour_bar = draw_colour_bar(cr.get(), layout.colour_bar_box_mm, ramp,
-                                 project.relief.exaggeration, layout.type, fonts);
-  draw_scale_bar(cr.get(), layout.scale_box_mm, layout.frame, layout.type, fonts);
-  draw_north_arrow(cr.get(), layout.scale_box_mm, layout.frame, layout.type, fonts);
-  draw_inset_map(cr.get(), layout.inset_box_mm, project, layout.frame, ramp, layout.type, fonts);
-  draw_notes(cr.get(), layout.notes_box_mm, project, layout.type, fonts);
-  check_cairo(cairo_status(cr.get()), "drawing the exhibit");
+  cairo_set_source_rgb(cr, 0.1, 0.1, 0.1);
+  cairo_set_line_width(cr, 0.6 * layout.type.factor);
+  cairo_rectangle(cr, m.min_x, m.min_y, m.width(), m.height());
+  cairo_stroke(cr);
+  draw_title(cr, layout, project, fonts);
+  c.colour_bar = draw_colour_bar(cr, layout.colour_bar_box_mm, ramp, project.relief.exaggeration,
+                                 layout.type, fonts);
+  draw_scale_bar(cr, layout.scale_box_mm, layout.frame, layout.type, fonts);
+  draw_north_arrow(cr, layout.scale_box_mm, layout.frame, layout.type, fonts);
+  draw_inset_map(cr, layout.inset_box_mm, project, layout.frame, ramp, layout.type, fonts);
+  draw_notes(cr, layout.notes_box_mm, project, layout.type, fonts);
+  check_cairo(cairo_status(cr), "drawing the exhibit");
+  target.end();
   return c;
 }
 
-void write_pdf(const ExhibitProject& project, const ExhibitLayout& layout, const ReliefPlan& plan,
-               const Composition& comp, const std::filesystem::path& output) {
+// The composition recorded once (for the PNG bands, which replay it over each band's relief).
+struct Recording {
+  CairoSurfacePtr surface;
+  Composition comp;
+};
+
+Recording record(const ExhibitProject& project, const ExhibitLayout& layout,
+                 const terrain::TintRamp& ramp) {
+  Recording r;
+  cairo_rectangle_t extents{0, 0, layout.page_w_mm, layout.page_h_mm};
+  r.surface.reset(cairo_recording_surface_create(CAIRO_CONTENT_COLOR_ALPHA, &extents));
+  CairoPtr cr(cairo_create(r.surface.get()));
+  check_cairo(cairo_status(cr.get()), "exhibit composition");
+  cairo_t* ctx = cr.get();
+  OverlayTarget one{[ctx](const char*) {
+                      cairo_save(ctx);
+                      return ctx;
+                    },
+                    [ctx] { cairo_restore(ctx); }};
+  r.comp = compose(one, project, layout, ramp);
+  check_cairo(cairo_status(ctx), "drawing the exhibit");
+  return r;
+}
+
+// The PDF through the shared finisher: every layer an optional content group, the map frame a
+// geospatial viewport. The relief is a layer of tagged placeholders there, swapped for the
+// streamed strips afterwards (pdf_relief.hpp), so no strip is held while Cairo writes.
+Composition write_pdf(const ExhibitProject& project, const ExhibitLayout& layout,
+                      const ReliefPlan& plan, const terrain::TintRamp& ramp,
+                      const std::filesystem::path& output) {
   AtomicOutput out(output);
-  const std::filesystem::path cairo_file = sibling_temp_path(output, "cairo");
+  const std::filesystem::path layered_file = sibling_temp_path(output, "layers");
   struct Remove {
     std::filesystem::path p;
     ~Remove() {
       std::error_code ec;
       std::filesystem::remove(p, ec);
     }
-  } remove_cairo_file{cairo_file};
+  } remove_layered_file{layered_file};
+  Composition comp;
   {
-    CairoSurfacePtr surface(cairo_pdf_surface_create(
-        cairo_file.c_str(), layout.page_w_mm * kPtPerMm, layout.page_h_mm * kPtPerMm));
-    check_cairo(cairo_surface_status(surface.get()), "creating the PDF");
-    cairo_pdf_surface_set_metadata(surface.get(), CAIRO_PDF_METADATA_TITLE, project.title.c_str());
-    cairo_pdf_surface_set_metadata(surface.get(), CAIRO_PDF_METADATA_SUBJECT,
-                                   project.subtitle.c_str());
-    cairo_pdf_surface_set_metadata(surface.get(), CAIRO_PDF_METADATA_CREATOR, "sheetmill exhibit");
-    CairoPtr cr(cairo_create(surface.get()));
-    cairo_scale(cr.get(), kPtPerMm, kPtPerMm);
-    paint_relief_placeholders(cr.get(), plan, layout.map_box_mm);
-    cairo_set_source_surface(cr.get(), comp.recording.get(), 0, 0);
-    cairo_paint(cr.get());
-    check_cairo(cairo_status(cr.get()), "writing the PDF");
-    cr.reset();
-    cairo_surface_finish(surface.get());
-    check_cairo(cairo_surface_status(surface.get()), "finishing the PDF");
+    pdf::LayeredCanvas canvas(layout.page_w_mm, layout.page_h_mm);
+    paint_relief_placeholders(canvas.begin_group("relief"), plan, layout.map_box_mm);
+    canvas.end_group();
+    OverlayTarget groups{[&canvas](const char* name) { return canvas.begin_group(name); },
+                         [&canvas] { canvas.end_group(); }};
+    comp = compose(groups, project, layout, ramp);
+    pdf::Metadata meta;
+    meta.title = project.title;
+    meta.subject = project.subtitle.empty() ? "Hearing exhibit" : project.subtitle;
+    meta.keywords = "hearing exhibit; shaded relief; " + layout.frame.crs_name;
+    meta.author = project.producer;
+    canvas.finish_pdf(layered_file, pdf::registration_of(layout.frame), meta, output.string());
   }
   detail::RepeatFilter once_per_warning;
   StreamedReliefReport rep = stream_relief_into_pdf(
-      cairo_file, out.temp_path(), plan, project.relief.compression, project.relief.jpeg_quality);
+      layered_file, out.temp_path(), plan, project.relief.compression, project.relief.jpeg_quality);
   log::debug("relief: {} strips streamed into the PDF, {} renders", rep.strips_replaced,
              rep.strip_renders);
   out.commit();
+  return comp;
 }
 
 void paint_argb(cairo_t* cr, const terrain::ReliefImage& img, Point origin_mm, double px_mm) {
@@ -122,7 +146,7 @@ void paint_argb(cairo_t* cr, const terrain::ReliefImage& img, Point origin_mm, d
   cairo_surface_finish(s.get());
 }
 
-void write_png(const ExhibitLayout& layout, const ReliefPlan& plan, const Composition& comp,
+void write_png(const ExhibitLayout& layout, const ReliefPlan& plan, const Recording& comp,
                const std::filesystem::path& output, double dpi, long max_pixels) {
   AtomicOutput out(output);
   const double px_per_mm = dpi / kMmPerInch;
@@ -161,7 +185,7 @@ void write_png(const ExhibitLayout& layout, const ReliefPlan& plan, const Compos
                      plan.px_mm);
           cairo_restore(cr.get());
         }
-        cairo_set_source_surface(cr.get(), comp.recording.get(), 0, 0);
+        cairo_set_source_surface(cr.get(), comp.surface.get(), 0, 0);
         cairo_paint(cr.get());
         check_cairo(cairo_status(cr.get()), "drawing the PNG band");
       }
@@ -199,14 +223,16 @@ ExhibitReport render_exhibit(const ExhibitProject& project, const std::filesyste
   rep.relief_strips = static_cast<int>(plan.strips.size());
   rep.relief_width_px = plan.grid.width;
   rep.relief_height_px = plan.grid.height;
-  Composition comp = compose(project, rep.layout, rep.ramp);
+  Composition comp;
+  if (options.format == ExhibitFormat::pdf) {
+    comp = write_pdf(project, rep.layout, plan, rep.ramp, output);
+  } else {
+    Recording r = record(project, rep.layout, rep.ramp);
+    write_png(rep.layout, plan, r, output, options.png_dpi, options.max_strip_pixels);
+    comp = r.comp;
+  }
   rep.colour_bar = comp.colour_bar;
   rep.callouts_forced = comp.callouts.placed_forced;
-  if (options.format == ExhibitFormat::pdf) {
-    write_pdf(project, rep.layout, plan, comp, output);
-  } else {
-    write_png(rep.layout, plan, comp, output, options.png_dpi, options.max_strip_pixels);
-  }
   rep.seconds = std::chrono::duration<double>(std::chrono::steady_clock::now() - start).count();
   return rep;
 }

@@ -1,15 +1,13 @@
 // Scale bar and north arrow of an exhibit (declared in furniture.hpp). Our own small versions:
 // the sheet stage's collar diagrams are designed for field sheets, not for reading across a room.
 #include <fmt/format.h>
-#include <ogr_spatialref.h>
 
 #include <cmath>
 
 #include "exhibit/text_helpers.hpp"
-#include "sheetmill/core/gdal_env.hpp"
-#include "sheetmill/core/handles.hpp"
 #include "sheetmill/core/units.hpp"
 #include "sheetmill/exhibit/furniture.hpp"
+#include "sheetmill/sheet/sheet_crs.hpp"
 
 namespace sheetmill::exhibit {
 
@@ -81,27 +79,12 @@ double draw_scale_bar(cairo_t* cr, const Box& box, const MapFrame& frame, const 
 
 double draw_north_arrow(cairo_t* cr, const Box& box, const MapFrame& frame, const TypeScale& type,
                         text::FontCache& fonts) {
-  // Grid convergence at the frame centre: the direction of the meridian through it, found by
-  // stepping a little north in geographic coordinates and projecting back (PROJ via OGR).
-  double convergence_deg = 0;
-  gdal_init();
-  OGRSpatialReference sheet;
-  if (sheet.importFromWkt(frame.crs_wkt.c_str()) == OGRERR_NONE) {
-    sheet.SetAxisMappingStrategy(OAMS_TRADITIONAL_GIS_ORDER);
-    std::unique_ptr<OGRSpatialReference> geo(sheet.CloneGeogCS());
-    geo->SetAxisMappingStrategy(OAMS_TRADITIONAL_GIS_ORDER);
-    CoordinateTransformPtr to_geo(OGRCreateCoordinateTransformation(&sheet, geo.get()));
-    CoordinateTransformPtr to_sheet(OGRCreateCoordinateTransformation(geo.get(), &sheet));
-    Point c = frame.ground.centre();
-    double x = c.x, y = c.y;
-    if (to_geo && to_sheet && to_geo->Transform(1, &x, &y)) {
-      double lat = y + 0.01;
-      double lon = x;
-      if (to_sheet->Transform(1, &lon, &lat)) {
-        convergence_deg = std::atan2(lon - c.x, lat - c.y) * kRadToDeg;
-      }
-    }
-  }
+  // The arrow points to true north: the sheet CRS's grid convergence at the frame centre
+  // (sheet/sheet_crs.hpp, PROJ's meridian convergence: positive when grid north lies east of
+  // true north) turned the other way, from grid north (page up) to true north.
+  const sheet::SheetCrs crs = sheet::SheetCrs::resolve(frame.crs_wkt);
+  const double convergence_deg =
+      -crs.factors_at(crs.to_lonlat(frame.ground.centre())).grid_convergence_deg;
   const double size = std::min(box.width() * 0.35, box.height() * 0.3);
   const Point centre{box.max_x - size * 0.6, box.max_y - size * 0.75};
   cairo_save(cr);

@@ -9,20 +9,12 @@
 #include "sheetmill/core/map_frame.hpp"
 #include "sheetmill/labels/candidate.hpp"
 #include "sheetmill/project/project.hpp"
+#include "sheetmill/render/sheet_contours.hpp"
 #include "sheetmill/style/style.hpp"
 #include "sheetmill/terrain/dem.hpp"
 #include "sheetmill/text/font.hpp"
 
 namespace sheetmill::render {
-
-struct SheetContours {
-  double interval_m = 0;
-  contours::HeightUnit unit;  // heights are shown in the DEM's vertical unit
-  std::vector<contours::ContourLine> lines;
-  terrain::Dem dem;                         // the grid they came from (for uphill labels)
-  std::vector<contours::SpotHeight> spots;  // summits from the DEM
-  std::vector<labels::Candidate> labels;    // index values and spot heights
-};
 
 // Builds the sheet's contours and their label candidates. `water` are lake/pond polygons in ground
 // coordinates that contours must not cross.

@@ -31,7 +31,7 @@ std::string today() {
 }
 
 void fill_north(NorthInfo& n, const project::Project& project, const SheetCrs& crs,
-                const Layout& layout) {
+                const Layout& layout, const geomag::Model* loaded) {
   Point c = crs.to_lonlat(layout.frame.ground.centre());
   n.centre_lonlat = c;
   PointFactors f = crs.factors_at(c);
@@ -44,7 +44,9 @@ void fill_north(NorthInfo& n, const project::Project& project, const SheetCrs& c
     n.annual_change_deg = mag.annual_change_deg;
     n.source = "stated in the project";
   } else if (mag.model_file) {
-    auto model = geomag::Model::load(*mag.model_file);
+    std::optional<geomag::Model> own;
+    const geomag::Model& model =
+        loaded ? *loaded : own.emplace(geomag::Model::load(*mag.model_file));
     double year = 0;
     try {
       year = geomag::decimal_year(n.date);
@@ -96,7 +98,7 @@ void location_outlines(const TileIndexContents& index, const IndexSheet& sheet, 
 }  // namespace
 
 SheetInfo describe_sheet(const project::Project& project, const Layout& layout,
-                         const TileIndexContents* index) {
+                         const TileIndexContents* index, const geomag::Model* model) {
   SheetInfo info;
   SheetCrs crs = SheetCrs::resolve(project.crs, "crs");
   info.crs_name = crs.name();
@@ -115,7 +117,7 @@ SheetInfo describe_sheet(const project::Project& project, const Layout& layout,
     info.height_unit_symbol = "ft";
     info.height_unit_name = "feet";
   }
-  fill_north(info.north, project, crs, layout);
+  fill_north(info.north, project, crs, layout, model);
 
   // Read the index here when the caller did not (a single render); batch renders pass theirs.
   std::optional<TileIndexContents> own_index;

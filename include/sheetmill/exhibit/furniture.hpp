@@ -40,7 +40,8 @@ double draw_scale_bar(cairo_t* cr, const Box& box, const MapFrame& frame, const 
                       text::FontCache& fonts);
 
 // A north arrow pointing to true north at the frame centre (grid convergence from PROJ), in
-// the box; returns the convergence in degrees (true north clockwise from grid north).
+// the box; returns the angle of true north clockwise from grid north, degrees: the negative of
+// sheet::PointFactors::grid_convergence_deg (grid north clockwise from true north).
 double draw_north_arrow(cairo_t* cr, const Box& box, const MapFrame& frame, const TypeScale& type,
                         text::FontCache& fonts);
 

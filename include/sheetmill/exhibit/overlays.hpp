@@ -8,6 +8,7 @@
 
 #include <cairo.h>
 
+#include <functional>
 #include <string>
 #include <vector>
 
@@ -45,6 +46,18 @@ struct CalloutReport {
   int placed_forced = 0;  // every position collided; placed at the first one anyway
 };
 
+// Where the overlays go: `begin(name)` gives the context for one named layer (water, roads,
+// veil, areas, places), `end()` closes it. A LayeredCanvas makes each an optional content group.
+struct OverlayTarget {
+  std::function<cairo_t*(const char*)> begin;
+  std::function<void()> end;
+};
+
+CalloutReport draw_overlay_groups(const OverlayTarget& target, const ExhibitProject& project,
+                                  const MapFrame& frame, const OverlayData& data,
+                                  const TypeScale& type, text::FontCache& fonts);
+
+// All of them onto one context, in the same order.
 CalloutReport draw_overlays(cairo_t* cr, const ExhibitProject& project, const MapFrame& frame,
                             const OverlayData& data, const TypeScale& type, text::FontCache& fonts);
 

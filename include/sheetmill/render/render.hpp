@@ -8,6 +8,7 @@
 #include <vector>
 
 #include "sheetmill/core/file_format.hpp"
+#include "sheetmill/geomag/model.hpp"
 #include "sheetmill/project/project.hpp"
 #include "sheetmill/sheet/tile_index.hpp"
 #include "sheetmill/style/style.hpp"
@@ -26,6 +27,9 @@ struct RenderOptions {
   const sheet::TileIndexContents* tile_index = nullptr;
   // Fonts and shaping faces, likewise kept across a worker's sheets; null = a fresh cache.
   text::FontCache* fonts = nullptr;
+  // The project's magnetic model, likewise; null = loaded for this sheet when the project names
+  // one.
+  const geomag::Model* magnetic_model = nullptr;
   // A symbolic link at the output is refused unless this is set; then the file it points to
   // is replaced and the link stays (core/atomic_file.hpp).
   bool write_through_link = false;

@@ -12,6 +12,7 @@
 #include <vector>
 
 #include "sheetmill/core/geometry.hpp"
+#include "sheetmill/geomag/model.hpp"
 #include "sheetmill/project/project.hpp"
 #include "sheetmill/sheet/layout.hpp"
 #include "sheetmill/sheet/sheet_contents.hpp"
@@ -78,7 +79,10 @@ struct SheetInfo {
 inline constexpr std::size_t kLocationWholeIndex = 300;
 inline constexpr double kLocationReach = 4.0;
 
+// `model`: the project's magnetic model already loaded (a batch worker loads it once); null and
+// the project names a model file: describe_sheet loads it.
 SheetInfo describe_sheet(const project::Project& project, const Layout& layout,
-                         const TileIndexContents* index = nullptr);
+                         const TileIndexContents* index = nullptr,
+                         const geomag::Model* model = nullptr);
 
 }  // namespace sheetmill::sheet

@@ -1,0 +1,30 @@
+// Phase 5, finish: the canvas to PDF, PNG or GeoTIFF, whole or not at all (render/phases.hpp).
+
+#include "sheetmill/core/atomic_file.hpp"
+#include "sheetmill/pdf/registration.hpp"
+#include "sheetmill/render/phases.hpp"
+
+namespace sheetmill::render {
+
+void finish(pdf::LayeredCanvas& canvas, const project::Project& project, const MapFrame& frame,
+            const std::filesystem::path& output, const RenderOptions& options) {
+  const LinkPolicy links =
+      options.write_through_link ? LinkPolicy::write_through : LinkPolicy::refuse;
+  AtomicOutput out(output, links);
+  const std::string shown = output.string();
+  if (options.format == OutputFormat::png) {
+    canvas.finish_png(out.temp_path(), options.raster_dpi, shown);
+  } else if (options.format == OutputFormat::geotiff) {
+    canvas.finish_geotiff(out.temp_path(), options.raster_dpi, pdf::registration_of(frame), shown);
+  } else {
+    pdf::Metadata meta;
+    meta.title = project.title;
+    meta.subject = project.subtitle.empty() ? "Topographic sheet" : project.subtitle;
+    meta.keywords = "topographic map; contours; " + frame.crs_name;
+    meta.author = project.producer;
+    canvas.finish_pdf(out.temp_path(), pdf::registration_of(frame), meta, shown);
+  }
+  out.commit();
+}
+
+}  // namespace sheetmill::render
