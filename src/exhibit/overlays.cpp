@@ -309,7 +309,9 @@ void draw_water(cairo_t* cr, const ExhibitProject& project, const OverlayData& d
     path_rings(cr, a.rings);
     cairo_set_fill_rule(cr, CAIRO_FILL_RULE_EVEN_ODD);
     if (project.relief.water_shade) {
-      set_rgba(cr, *project.relief.water_shade, 0.55);  // soft: the relief shows through
+      // Nearly opaque: water keeps its own colour over any tint (a lake on low green ground
+      // must not mix into the land's colour); its outline still holds it apart.
+      set_rgba(cr, *project.relief.water_shade, 0.9);
       cairo_fill_preserve(cr);
     }
     set_rgba(cr, kWater);

@@ -20,7 +20,20 @@ const std::vector<ShippedRamp>& shipped_ramps() {
   // so that lightness alone orders the elevations and the blue-yellow opponent axis, which
   // dichromats keep, carries the hue change. "meadow": conventional greens, tans and browns
   // to a pale top; its green-to-brown step is hard to tell apart for red-green deficiency.
+  // "groundlight" (the default): our own design for dry land. Anchors in CIE LCh with lightness
+  // 32, 44, 56, 67, 78, 88, 97 and hue turning from green (138 deg) through olive and ochre to
+  // cream (78 deg): no blue or teal anywhere, so low ground never reads as water, and lightness
+  // alone still orders the elevations for every kind of colour vision.
   static const std::vector<ShippedRamp> ramps = {
+      {"groundlight",
+       {{0.0, hex(0x32532d)},
+        {1.0 / 6, hex(0x54703a)},
+        {2.0 / 6, hex(0x808c48)},
+        {3.0 / 6, hex(0xaea55b)},
+        {4.0 / 6, hex(0xdbbe7a)},
+        {5.0 / 6, hex(0xf8d8ab)},
+        {1.0, hex(0xfff4e4)}},
+       true},
       {"clearsight",
        {{0.0, hex(0x004d6f)},
         {1.0 / 6, hex(0x007484)},

@@ -4,10 +4,12 @@
 // A shipped ramp is a list of colours at relative positions 0..1 (low to high). fit_ramp()
 // places it over an elevation range whose ends and steps are Heckbert (1990) nice numbers, so
 // every stop of the resulting TintRamp sits at a round elevation the colour bar can label.
-// "clearsight" is designed for colour-vision deficiency: CIELAB lightness rises monotonically
+// "groundlight" (the default) and "clearsight" are designed for colour-vision deficiency:
+// CIELAB lightness rises monotonically
 // from stop to stop and neighbouring stops stay apart under simulated deuteranopia and
-// protanopia (tests/exhibit/ramp_test.cpp checks both). "meadow" is a conventional
-// green-brown-white ramp that is not safe for red-green deficiency.
+// protanopia (tests/exhibit/ramp_test.cpp checks both). "groundlight" has no blue or teal, so
+// low dry land never takes the colour of water; "clearsight" starts in blue-green. "meadow" is a
+// conventional green-brown-white ramp that is not safe for red-green deficiency.
 
 #include <string>
 #include <utility>
