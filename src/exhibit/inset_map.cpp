@@ -14,7 +14,7 @@ namespace sheetmill::exhibit {
 
 void draw_inset_map(cairo_t* cr, const Box& box, const ExhibitProject& project,
                     const MapFrame& frame, const terrain::TintRamp& ramp, const TypeScale& type,
-                    text::FontCache& fonts) {
+                    text::FontCache& fonts, const std::vector<Point>& terrain_ground) {
   const double heading_h = type.heading_pt * kMmPerPt;
   detail::put_text(cr, fonts, detail::bold(), type.heading_pt, "Location",
                    {box.min_x, box.min_y + heading_h}, detail::Align::left, {0.1, 0.1, 0.1, 1});
@@ -78,6 +78,21 @@ void draw_inset_map(cairo_t* cr, const Box& box, const ExhibitProject& project,
     cairo_set_source_surface(cr, s.get(), 0, 0);
     cairo_paint(cr);
     cairo_restore(cr);
+  }
+  // The terrain data's extent, so the exhibit is seen inside something known.
+  if (terrain_ground.size() >= 3) {
+    cairo_new_path(cr);
+    for (const Point& g : terrain_ground) {
+      cairo_line_to(cr, map.min_x + (g.x - ground.min_x) / ground.width() * w,
+                    map.min_y + (ground.max_y - g.y) / ground.height() * h);
+    }
+    cairo_close_path(cr);
+    const double dash[] = {1.6 * type.factor, 0.8 * type.factor};
+    cairo_set_dash(cr, dash, 2, 0);
+    cairo_set_source_rgb(cr, 0.25, 0.25, 0.25);
+    cairo_set_line_width(cr, 0.4 * type.factor);
+    cairo_stroke(cr);
+    cairo_set_dash(cr, nullptr, 0, 0);
   }
   // The exhibit's frame: the middle third.
   cairo_set_source_rgb(cr, 0.78, 0.12, 0.35);

@@ -20,6 +20,7 @@
 #include "sheetmill/exhibit/relief_strips.hpp"
 #include "sheetmill/pdf/layered_canvas.hpp"
 #include "sheetmill/pdf/registration.hpp"
+#include "sheetmill/sheet/dem_footprint.hpp"
 
 namespace sheetmill::exhibit {
 
@@ -45,7 +46,8 @@ struct Composition {
 };
 
 Composition compose(const OverlayTarget& target, const ExhibitProject& project,
-                    const ExhibitLayout& layout, const terrain::TintRamp& ramp) {
+                    const ExhibitLayout& layout, const terrain::TintRamp& ramp,
+                    const std::vector<Point>& terrain_ground) {
   Composition c;
   text::FontCache fonts;
   OverlayData data = read_overlays(project, layout.frame);
@@ -61,7 +63,8 @@ Composition compose(const OverlayTarget& target, const ExhibitProject& project,
                                  layout.type, fonts);
   draw_scale_bar(cr, layout.scale_box_mm, layout.frame, layout.type, fonts);
   draw_north_arrow(cr, layout.scale_box_mm, layout.frame, layout.type, fonts);
-  draw_inset_map(cr, layout.inset_box_mm, project, layout.frame, ramp, layout.type, fonts);
+  draw_inset_map(cr, layout.inset_box_mm, project, layout.frame, ramp, layout.type, fonts,
+                 terrain_ground);
   draw_notes(cr, layout.notes_box_mm, project, layout.type, fonts);
   check_cairo(cairo_status(cr), "drawing the exhibit");
   target.end();
@@ -75,7 +78,7 @@ struct Recording {
 };
 
 Recording record(const ExhibitProject& project, const ExhibitLayout& layout,
-                 const terrain::TintRamp& ramp) {
+                 const terrain::TintRamp& ramp, const std::vector<Point>& terrain_ground) {
   Recording r;
   cairo_rectangle_t extents{0, 0, layout.page_w_mm, layout.page_h_mm};
   r.surface.reset(cairo_recording_surface_create(CAIRO_CONTENT_COLOR_ALPHA, &extents));
@@ -87,7 +90,7 @@ Recording record(const ExhibitProject& project, const ExhibitLayout& layout,
                       return ctx;
                     },
                     [ctx] { cairo_restore(ctx); }};
-  r.comp = compose(one, project, layout, ramp);
+  r.comp = compose(one, project, layout, ramp, terrain_ground);
   check_cairo(cairo_status(ctx), "drawing the exhibit");
   return r;
 }
@@ -97,6 +100,7 @@ Recording record(const ExhibitProject& project, const ExhibitLayout& layout,
 // streamed strips afterwards (pdf_relief.hpp), so no strip is held while Cairo writes.
 Composition write_pdf(const ExhibitProject& project, const ExhibitLayout& layout,
                       const ReliefPlan& plan, const terrain::TintRamp& ramp,
+                      const std::vector<Point>& terrain_ground,
                       const std::filesystem::path& output) {
   AtomicOutput out(output);
   const std::filesystem::path layered_file = sibling_temp_path(output, "layers");
@@ -114,7 +118,7 @@ Composition write_pdf(const ExhibitProject& project, const ExhibitLayout& layout
     canvas.end_group();
     OverlayTarget groups{[&canvas](const char* name) { return canvas.begin_group(name); },
                          [&canvas] { canvas.end_group(); }};
-    comp = compose(groups, project, layout, ramp);
+    comp = compose(groups, project, layout, ramp, terrain_ground);
     pdf::Metadata meta;
     meta.title = project.title;
     meta.subject = project.subtitle.empty() ? "Hearing exhibit" : project.subtitle;
@@ -214,7 +218,15 @@ ExhibitReport render_exhibit(const ExhibitProject& project, const std::filesyste
   const auto start = std::chrono::steady_clock::now();
   ExhibitReport rep;
   rep.output = output;
-  rep.layout = compute_exhibit_layout(project);
+  // Read: the DEM's footprint, once, for the frame's growth and the inset. A DEM that does not
+  // open is reported by the relief reader with its own message.
+  std::vector<Point> terrain_ground;
+  try {
+    terrain_ground = sheet::dem_footprint(project.relief.dem, project.relief.dem_crs, project.crs);
+  } catch (const Error&) {
+    terrain_ground.clear();
+  }
+  rep.layout = compute_exhibit_layout(project, terrain_ground);
   rep.ramp = ramp_for(project, rep.layout.frame);
   const double dpi = options.format == ExhibitFormat::png
                          ? options.png_dpi
@@ -225,9 +237,9 @@ ExhibitReport render_exhibit(const ExhibitProject& project, const std::filesyste
   rep.relief_height_px = plan.grid.height;
   Composition comp;
   if (options.format == ExhibitFormat::pdf) {
-    comp = write_pdf(project, rep.layout, plan, rep.ramp, output);
+    comp = write_pdf(project, rep.layout, plan, rep.ramp, terrain_ground, output);
   } else {
-    Recording r = record(project, rep.layout, rep.ramp);
+    Recording r = record(project, rep.layout, rep.ramp, terrain_ground);
     write_png(rep.layout, plan, r, output, options.png_dpi, options.max_strip_pixels);
     comp = r.comp;
   }

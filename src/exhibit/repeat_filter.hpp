@@ -20,7 +20,9 @@ class RepeatFilter {
   ~RepeatFilter() {
     log::set_level(level_);
     std::vector<std::string> seen;
-    for (const std::string& w : collector_.warnings()) {
+    // A copy: writing a warning appends it to collector_, which is still this thread's.
+    const std::vector<std::string> all = collector_.warnings();
+    for (const std::string& w : all) {
       if (std::find(seen.begin(), seen.end(), w) != seen.end()) continue;
       seen.push_back(w);
       if (level_ <= log::Level::warning) log::write(log::Level::warning, w);

@@ -8,6 +8,7 @@
 
 #include "sheetmill/core/error.hpp"
 #include "sheetmill/core/gdal_env.hpp"
+#include "sheetmill/sheet/dem_footprint.hpp"
 #include "sheetmill/sheet/dms.hpp"
 #include "sheetmill/sheet/nice_numbers.hpp"
 
@@ -28,7 +29,12 @@ Box location_area(const Box& sheet_ground) {
 std::vector<Point> dem_footprint(const project::Project& project) {
   const auto& el = project.elevation;
   if (el.dem.empty()) return {};
-  DatasetPtr ds = open_raster(el.dem);
+  return dem_footprint(el.dem, el.crs, project.crs);
+}
+
+std::vector<Point> dem_footprint(const std::string& dem, const std::optional<std::string>& dem_crs,
+                                 const std::string& sheet_crs) {
+  DatasetPtr ds = open_raster(dem);
   double gt[6];
   if (ds->GetGeoTransform(gt) != CE_None) return {};
   std::string from;
@@ -38,9 +44,9 @@ std::vector<Point> dem_footprint(const project::Project& project) {
     from = wkt ? wkt : "";
     CPLFree(wkt);
   }
-  if (from.empty() && el.crs) from = *el.crs;
+  if (from.empty() && dem_crs) from = *dem_crs;
   if (from.empty()) return {};
-  Reprojector to_sheet(from, project.crs);
+  Reprojector to_sheet(from, sheet_crs);
   const double w = ds->GetRasterXSize(), h = ds->GetRasterYSize();
   auto pixel = [&](double col, double row) {
     return Point{gt[0] + col * gt[1] + row * gt[2], gt[3] + col * gt[4] + row * gt[5]};

@@ -51,7 +51,7 @@ enum class ReliefCompression { lossless, jpeg };
 struct ReliefSettings {
   std::string dem;                                   // raster path (resolved)
   std::optional<std::string> dem_crs;                // when the DEM carries none
-  std::string ramp_name = "groundlight";              // a shipped ramp (ramps.hpp) ...
+  std::string ramp_name = "groundlight";             // a shipped ramp (ramps.hpp) ...
   std::optional<terrain::TintRamp> ramp;             // ... or explicit stops / a ramp file
   std::optional<std::pair<double, double>> range_m;  // shipped ramp stretched over this range
   double exaggeration = 1;

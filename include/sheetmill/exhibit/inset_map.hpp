@@ -5,6 +5,8 @@
 
 #include <cairo.h>
 
+#include <vector>
+
 #include "sheetmill/core/geometry.hpp"
 #include "sheetmill/core/map_frame.hpp"
 #include "sheetmill/exhibit/exhibit_project.hpp"
@@ -14,8 +16,10 @@
 
 namespace sheetmill::exhibit {
 
+// `terrain_ground`: the DEM's footprint in the sheet CRS (sheet/dem_footprint.hpp), outlined so
+// the inset shows the exhibit inside the terrain data's extent; empty: no outline.
 void draw_inset_map(cairo_t* cr, const Box& box, const ExhibitProject& project,
                     const MapFrame& frame, const terrain::TintRamp& ramp, const TypeScale& type,
-                    text::FontCache& fonts);
+                    text::FontCache& fonts, const std::vector<Point>& terrain_ground = {});
 
 }  // namespace sheetmill::exhibit
