@@ -196,9 +196,19 @@ ExhibitProject read(const ConfigNode& root) {
   read_relief(root.at("relief"), p.relief);
   if (auto c = root.find("context")) {
     c->expect_keys({"water_areas", "water_lines", "roads"});
-    if (auto n = c->find("water_areas")) p.context.water_areas = layer_of(*n, {});
-    if (auto n = c->find("water_lines")) p.context.water_lines = layer_of(*n, {});
-    if (auto n = c->find("roads")) p.context.roads = layer_of(*n, {});
+    if (auto n = c->find("water_areas")) {
+      p.context.water_areas = layer_of(*n, {"name_field"});
+      p.context.water_areas->name_field = n->get_or<std::string>("name_field", "name");
+    }
+    if (auto n = c->find("water_lines")) {
+      p.context.water_lines = layer_of(*n, {"name_field"});
+      p.context.water_lines->name_field = n->get_or<std::string>("name_field", "name");
+    }
+    if (auto n = c->find("roads")) {
+      p.context.roads = layer_of(*n, {"class_field", "number_field"});
+      p.context.roads->class_field = n->get_or<std::string>("class_field", "class");
+      p.context.roads->number_field = n->get_or<std::string>("number_field", "ref");
+    }
   }
   if (auto a = root.find("areas")) {
     for (const ConfigNode& item : a->items()) p.areas.push_back(area_of(item));

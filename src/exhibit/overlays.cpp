@@ -138,15 +138,46 @@ std::vector<PageArea> veil_of(const MapFrame& frame,
   return {even_odd};
 }
 
+// Lines with up to two attributes (empty when the source lacks the field).
+std::vector<NamedLine> read_named_lines(const LayerRef& ref, const std::string& name,
+                                        const MapFrame& frame, const std::string& name_field,
+                                        const std::string& kind_field) {
+  std::vector<NamedLine> out;
+  std::vector<std::string> fields{name_field};
+  if (!kind_field.empty()) fields.push_back(kind_field);
+  features::read_features(source_of(ref, name), request_for(frame, fields),
+                          [&](const features::Feature& f) {
+                            const std::string* n = f.value(0);
+                            const std::string* k = kind_field.empty() ? nullptr : f.value(1);
+                            for (const Polyline& l : f.lines)
+                              out.push_back({to_page(frame, l), n ? *n : "", k ? *k : ""});
+                          });
+  return out;
+}
+
 }  // namespace
 
 OverlayData read_overlays(const ExhibitProject& project, const MapFrame& frame) {
   OverlayData d;
-  if (project.context.water_areas)
-    d.water_areas = read_areas(*project.context.water_areas, "water_areas", frame);
-  if (project.context.water_lines)
-    d.water_lines = read_lines(*project.context.water_lines, "water_lines", frame);
-  if (project.context.roads) d.roads = read_lines(*project.context.roads, "roads", frame);
+  if (const auto& wa = project.context.water_areas) {
+    d.water_areas = read_areas(*wa, "water_areas", frame);
+    features::read_features(source_of(*wa, "water_areas"), request_for(frame, {wa->name_field}),
+                            [&](const features::Feature& f) {
+                              const std::string* n = f.value(0);
+                              if (!n || n->empty()) return;
+                              for (const features::Polygon& poly : f.polygons)
+                                d.named_lakes.push_back({{{to_page(frame, poly.outer)}}, *n});
+                            });
+  }
+  if (const auto& wl = project.context.water_lines) {
+    d.water_lines = read_lines(*wl, "water_lines", frame);
+    for (NamedLine& l : read_named_lines(*wl, "water_lines", frame, wl->name_field, ""))
+      if (!l.name.empty()) d.named_waters.push_back(std::move(l));
+  }
+  if (const auto& r = project.context.roads) {
+    d.road_lines = read_named_lines(*r, "roads", frame, r->number_field, r->class_field);
+    for (const NamedLine& l : d.road_lines) d.roads.push_back(l.line);
+  }
   for (std::size_t i = 0; i < project.areas.size(); ++i) {
     const AreaOverlay& area = project.areas[i];
     if (!area.ring.empty()) {
@@ -216,11 +247,10 @@ void set_rgba(cairo_t* cr, const Colour& c, double alpha = 1) {
   cairo_set_source_rgba(cr, c.r, c.g, c.b, c.a * alpha);
 }
 
-CalloutReport draw_callouts(cairo_t* cr, const std::vector<Place>& places, const Box& map,
-                            const TypeScale& type, text::FontCache& fonts) {
+CalloutReport draw_callouts(cairo_t* cr, const std::vector<Place>& places,
+                            text::CollisionIndex& index, const TypeScale& type,
+                            text::FontCache& fonts) {
   CalloutReport rep;
-  text::CollisionIndex index(map.expanded(1), 20 * type.factor);
-  index.set_bounds(map);
   const double f = type.factor;
   const double dot_r = 1.6 * f;
   for (const Place& p : places) {
@@ -327,16 +357,137 @@ void draw_water(cairo_t* cr, const ExhibitProject& project, const OverlayData& d
   }
 }
 
+// Road classes, strongest last so they lie on top: minor, secondary, main. Widths in mm at
+// ARCH E, scaled with the type; each a white casing under its colour.
+struct RoadLook {
+  const char* kind;
+  double width, casing;
+  Colour colour;
+};
+constexpr RoadLook kMinorRoad{"", 0.9, 1.8, {0.33, 0.31, 0.30, 1}};
+constexpr RoadLook kRoadLooks[] = {{"secondary", 1.5, 2.6, {0.78, 0.42, 0.12, 1}},
+                                   {"main", 2.1, 3.3, {0.66, 0.16, 0.12, 1}}};
+
+const RoadLook& look_of(const std::string& kind) {
+  for (const RoadLook& l : kRoadLooks)
+    if (kind == l.kind) return l;
+  return kMinorRoad;
+}
+
 void draw_roads(cairo_t* cr, const OverlayData& data, double f) {
-  if (data.roads.empty()) return;
-  path_lines(cr, data.roads);
-  cairo_set_source_rgba(cr, 1, 1, 1, 0.9);
-  cairo_set_line_width(cr, 1.8 * f);
-  cairo_set_line_cap(cr, CAIRO_LINE_CAP_ROUND);
-  cairo_stroke_preserve(cr);
-  cairo_set_source_rgb(cr, 0.33, 0.31, 0.30);
-  cairo_set_line_width(cr, 0.9 * f);
-  cairo_stroke(cr);
+  auto draw_class = [&](const RoadLook& look) {
+    std::vector<Polyline> lines;
+    for (const NamedLine& r : data.road_lines)
+      if (&look_of(r.kind) == &look) lines.push_back(r.line);
+    if (lines.empty()) return;
+    path_lines(cr, lines);
+    cairo_set_source_rgba(cr, 1, 1, 1, 0.9);
+    cairo_set_line_width(cr, look.casing * f);
+    cairo_set_line_cap(cr, CAIRO_LINE_CAP_ROUND);
+    cairo_stroke_preserve(cr);
+    set_rgba(cr, look.colour);
+    cairo_set_line_width(cr, look.width * f);
+    cairo_stroke(cr);
+  };
+  draw_class(kMinorRoad);
+  for (const RoadLook& l : kRoadLooks) draw_class(l);
+}
+
+// The longest piece of each name (pieces of one river or road share it), page mm.
+std::vector<const NamedLine*> longest_per_name(const std::vector<NamedLine>& lines) {
+  std::vector<const NamedLine*> out;
+  auto len = [](const Polyline& l) {
+    double s = 0;
+    for (std::size_t i = 1; i < l.size(); ++i) s += length(l[i] - l[i - 1]);
+    return s;
+  };
+  for (const NamedLine& l : lines) {
+    if (l.name.empty()) continue;
+    auto it =
+        std::find_if(out.begin(), out.end(), [&](const NamedLine* o) { return o->name == l.name; });
+    if (it == out.end()) {
+      out.push_back(&l);
+    } else if (len(l.line) > len((*it)->line)) {
+      *it = &l;
+    }
+  }
+  return out;
+}
+
+// The point half-way along a line and the direction of its segment there.
+std::pair<Point, Point> middle_of(const Polyline& l) {
+  double total = 0;
+  for (std::size_t i = 1; i < l.size(); ++i) total += length(l[i] - l[i - 1]);
+  double run = 0;
+  for (std::size_t i = 1; i < l.size(); ++i) {
+    const double s = length(l[i] - l[i - 1]);
+    if (s > 0 && run + s >= total / 2) {
+      const double u = (total / 2 - run) / s;
+      return {l[i - 1] + (l[i] - l[i - 1]) * u, (l[i] - l[i - 1]) * (1 / s)};
+    }
+    run += s;
+  }
+  return {l.empty() ? Point{} : l.front(), {1, 0}};
+}
+
+const Colour kWaterText{0.05, 0.30, 0.58, 1};
+
+// River names along their line (upright), lake names inside the lake, road numbers boxed at
+// the middle of their longest piece. Each is placed only where it is free in `index`.
+void draw_names(cairo_t* cr, const OverlayData& data, const Box& map, text::CollisionIndex& index,
+                const TypeScale& type, text::FontCache& fonts) {
+  const double f = type.factor;
+  const text::FontKey italic{"DejaVu Sans", 400, true};
+  text::TextPaint water_paint;
+  water_paint.colour = kWaterText;
+  water_paint.halo = true;
+  water_paint.halo_width_mm = 0.5 * f;
+  for (const NamedLine* w : longest_per_name(data.named_waters)) {
+    text::ShapedText t = text::shape(fonts, italic, type.fine_pt, w->name);
+    auto [mid, dir] = middle_of(w->line);
+    if (dir.x < 0) dir = dir * -1;  // keep the text upright
+    const double angle = std::atan2(dir.y, dir.x);
+    const Point n{-dir.y, dir.x};
+    const double gap = 1.2 * f;  // beside the line, not on it
+    const Point origin = mid - dir * (t.width_mm / 2) - n * gap;
+    const text::Quad q =
+        text::rotated_box(origin - n * t.ascent_mm, t.width_mm, t.height_mm(), angle);
+    if (!map.contains(origin) || !index.is_free(q)) continue;
+    index.insert(q);
+    text::draw_text(cr, t, origin, angle, water_paint);
+  }
+  for (const NamedArea& lake : data.named_lakes) {
+    if (lake.area.rings.empty()) continue;
+    Box b;
+    for (const Point& p : lake.area.rings.front()) b.add(p);
+    text::ShapedText t = text::shape(fonts, italic, type.body_pt, lake.name);
+    if (t.width_mm > b.width() * 1.3) continue;  // too small a lake for its name
+    const Point c = b.centre();
+    const Point origin{c.x - t.width_mm / 2, c.y + t.ascent_mm / 2};
+    const Box tb = Box::of(origin.x, origin.y - t.ascent_mm, origin.x + t.width_mm,
+                           origin.y - t.ascent_mm + t.height_mm());
+    if (!map.contains(c) || !index.is_free(text::box_quad(tb))) continue;
+    index.insert(text::box_quad(tb));
+    text::draw_text(cr, t, origin, 0, water_paint);
+  }
+  text::TextPaint number_paint;
+  number_paint.colour = {1, 1, 1, 1};
+  const double pad = 0.3 * type.fine_pt * kMmPerPt;
+  for (const NamedLine* r : longest_per_name(data.road_lines)) {
+    text::ShapedText t = text::shape(fonts, detail::bold(), type.fine_pt, r->name);
+    const Point mid = middle_of(r->line).first;
+    const Box box = Box::of(mid.x - t.width_mm / 2 - pad, mid.y - t.height_mm() / 2 - pad,
+                            mid.x + t.width_mm / 2 + pad, mid.y + t.height_mm() / 2 + pad);
+    if (!map.contains(mid) || !index.is_free(text::box_quad(box))) continue;
+    index.insert(text::box_quad(box));
+    cairo_rectangle(cr, box.min_x, box.min_y, box.width(), box.height());
+    set_rgba(cr, look_of(r->kind).colour);
+    cairo_fill_preserve(cr);
+    cairo_set_source_rgb(cr, 1, 1, 1);
+    cairo_set_line_width(cr, 0.35 * f);
+    cairo_stroke(cr);
+    text::draw_text(cr, t, {box.min_x + pad, box.min_y + pad + t.ascent_mm}, 0, number_paint);
+  }
 }
 
 void draw_veil(cairo_t* cr, const ExhibitProject& project, const OverlayData& data) {
@@ -386,7 +537,12 @@ CalloutReport draw_overlay_groups(const OverlayTarget& target, const ExhibitProj
   group("roads", [&](cairo_t* cr) { draw_roads(cr, data, f); });
   group("veil", [&](cairo_t* cr) { draw_veil(cr, project, data); });
   group("areas", [&](cairo_t* cr) { draw_areas(cr, project, data, f); });
-  group("places", [&](cairo_t* cr) { rep = draw_callouts(cr, data.places, map, type, fonts); });
+  // Callouts first in the one collision index (they are what the hearing is about), then the
+  // names of rivers, lakes and roads where they are free of them and of each other.
+  text::CollisionIndex labels(map.expanded(1), 20 * type.factor);
+  labels.set_bounds(map);
+  group("places", [&](cairo_t* cr) { rep = draw_callouts(cr, data.places, labels, type, fonts); });
+  group("names", [&](cairo_t* cr) { draw_names(cr, data, map, labels, type, fonts); });
   return rep;
 }
 

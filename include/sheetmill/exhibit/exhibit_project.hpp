@@ -20,6 +20,9 @@ struct LayerRef {
   std::string path;
   std::string layer;
   std::string where;
+  std::string name_field = "name";    // water: names; places: see PlaceCallouts
+  std::string class_field = "class";  // roads: main, secondary, other
+  std::string number_field = "ref";   // roads: the road's number
 };
 
 // A project boundary or one of several alternatives, drawn with a strong outline.
