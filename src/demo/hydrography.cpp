@@ -50,7 +50,8 @@ Point nearest_on(const std::vector<Polyline>& parts, Point p) {
   return best;
 }
 
-ChannelProfile stream_profile(double area_km2, double fine_cell_m) {
+ChannelProfile stream_profile(const StreamLine& line, double fine_cell_m) {
+  double area_km2 = line.area_km2;
   ChannelProfile p;
   // The floor is at least as wide as a fine cell diagonal, so the cells bilinear sampling
   // reads at a vertex all lie on the floor.
@@ -59,7 +60,9 @@ ChannelProfile stream_profile(double area_km2, double fine_cell_m) {
   p.bank_height_m = 0.8;
   p.bank_width_m = 2;
   p.side_slope = 0.32;
-  double incision = std::min(30.0, 2.0 + 6.5 * std::sqrt(area_km2));
+  double incision = std::max(line.max_incision_m, std::min(30.0, 2.0 + 6.5 * std::sqrt(area_km2)));
+  // A gorge has steeper walls than an open valley.
+  if (incision > 25) p.side_slope = 0.55;
   p.reach_m = p.floor_half_width_m + 2 + (incision + 15) / p.side_slope;
   return p;
 }
@@ -114,9 +117,10 @@ Hydrography carve_hydrography(const Scenario& s, FloatGrid& dem, NameMaker& name
   in.river_bed_m = [&](Point p) { return s.river_bed_m(p.x); };
   in.lake_level_m = s.lake_level_m;
   in.threshold_m2 = 250000;
+  in.seed = s.seed;
   h.streams = extract_streams(in);
   for (const StreamLine& line : h.streams) {
-    carve_channel(dem, line.line, line.bed_m, stream_profile(line.area_km2, dem.spec.cell_m));
+    carve_channel(dem, line.line, line.bed_m, stream_profile(line, dem.spec.cell_m));
   }
   flatten_lake(s, dem);
 

@@ -43,11 +43,12 @@ double height_at(const Scenario& s, const Seeds& k, double x, double y) {
   double base = bed + 2.5 + 175 * (1 - std::exp(-out / 1600));
   double amp = 30 + 200 * smoothstep(out / 3500);
 
-  // Escarpment: a steep step of 260 m up to the plateau, whose top dips gently north.
+  // Escarpment: a steep step up to the plateau, varying in height and steepness along its
+  // length; the plateau's top tilts north in places and south (over the step) in others.
   double esc = s.escarpment_y(x);
   double w = s.escarpment_width_m(x);
   double step = smoothstep((y - esc) / w + 0.5);
-  double plateau = step * (260 - 0.011 * std::max(0.0, y - esc));
+  double plateau = step * (s.escarpment_height_m(x) - s.plateau_dip(x) * std::max(0.0, y - esc));
   // The plateau's north-east rises into a group of higher ridges.
   double ne = smoothstep((u - 9000) / 9000) * smoothstep((v - 10500) / 3500);
   amp *= 1 - 0.4 * step + 0.5 * ne;
