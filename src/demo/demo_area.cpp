@@ -117,6 +117,8 @@ DemoAreaSummary generate_demo_area(const fs::path& outdir_arg, const DemoAreaOpt
   int lowered = enforce_downhill(dem, water_lines,
                                  [&](int col, int row) { return lake[dem.index(col, row)] != 0; });
   log::debug("demo-area: {} cells lowered so that every water line runs downhill", lowered);
+  int trimmed = trim_stream_heads(water, dem, kChannelThresholdM2);
+  log::debug("demo-area: {} stream-head vertices above the fine grid's channel heads", trimmed);
 
   features.summits = find_summits(dem, 14, 600, names);
   Settlements settled = lay_out_settlements(scenario, dem, water, features.summits, names);

@@ -2,6 +2,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <iterator>
 #include <map>
 
 #include "sheetmill/core/log.hpp"
@@ -69,6 +70,62 @@ ChannelProfile stream_profile(const StreamLine& line, double fine_cell_m) {
 
 }  // namespace
 
+int trim_stream_heads(Hydrography& h, const FloatGrid& dem, double threshold_m2) {
+  FlowRouting flow = route_flow(dem, {});
+  const GridSpec& g = dem.spec;
+  auto gathered = [&](Point p) {
+    int col = static_cast<int>(std::floor((p.x - g.x0) / g.cell_m));
+    int row = static_cast<int>(std::floor((g.y_top - p.y) / g.cell_m));
+    for (int r = row - 1; r <= row + 1; ++r) {
+      for (int c = col - 1; c <= col + 1; ++c) {
+        if (g.inside(c, r) && flow.area_m2[dem.index(c, r)] > threshold_m2) return true;
+      }
+    }
+    return false;
+  };
+  std::size_t n = h.streams.size();
+  std::size_t first = h.river_parts.size();  // h.lines: the river's parts, then the streams
+  std::vector<char> fed(n, 0), keep(n, 1);
+  for (const StreamLine& l : h.streams) {
+    if (l.receiver_line >= 0) fed[l.receiver_line] = 1;
+  }
+  int removed = 0;
+  for (std::size_t i = 0; i < n; ++i) {
+    if (fed[i]) continue;
+    StreamLine& l = h.streams[i];
+    std::size_t k = 0;
+    while (k < l.line.size() && !gathered(l.line[k])) ++k;
+    if (k + 1 >= l.line.size()) {
+      keep[i] = 0;
+      removed += static_cast<int>(l.line.size());
+      continue;
+    }
+    l.line.erase(l.line.begin(), l.line.begin() + static_cast<long>(k));
+    l.bed_m.erase(l.bed_m.begin(), l.bed_m.begin() + static_cast<long>(k));
+    h.lines[first + i].line = l.line;
+    removed += static_cast<int>(k);
+  }
+  // Drop the emptied lines and renumber the references between lines.
+  std::vector<int> new_index(n, -1);
+  std::vector<StreamLine> streams;
+  std::vector<WaterLine> lines(h.lines.begin(), h.lines.begin() + static_cast<long>(first));
+  for (std::size_t i = 0; i < n; ++i) {
+    if (!keep[i]) continue;
+    new_index[i] = static_cast<int>(streams.size());
+    streams.push_back(std::move(h.streams[i]));
+    lines.push_back(std::move(h.lines[first + i]));
+  }
+  for (StreamLine& l : streams) {
+    if (l.receiver_line >= 0) l.receiver_line = new_index[l.receiver_line];
+    if (l.main_stem >= 0) l.main_stem = new_index[l.main_stem];
+  }
+  lines.insert(lines.end(), std::make_move_iterator(h.lines.begin() + static_cast<long>(first + n)),
+               std::make_move_iterator(h.lines.end()));
+  h.streams = std::move(streams);
+  h.lines = std::move(lines);
+  return removed;
+}
+
 std::vector<char> lake_mask(const Scenario& s, const GridSpec& spec) {
   std::vector<char> mask(spec.size(), 0);
   for_cells_in_ring(spec, s.lake_ring, [&](int col, int row) {
@@ -108,6 +165,7 @@ Hydrography carve_hydrography(const Scenario& s, FloatGrid& dem, NameMaker& name
   std::vector<char> sink_mask(cg.size());
   for (std::size_t i = 0; i < cg.size(); ++i) sink_mask[i] = sinks[i] != Sink::none;
   FlowRouting flow = route_flow(coarse, sink_mask);
+  join_parallel_flows(flow, 60000);
 
   StreamInputs in;
   in.flow = &flow;
@@ -116,7 +174,7 @@ Hydrography carve_hydrography(const Scenario& s, FloatGrid& dem, NameMaker& name
   in.river_point = [&](Point p) { return nearest_on(h.river_parts, p); };
   in.river_bed_m = [&](Point p) { return s.river_bed_m(p.x); };
   in.lake_level_m = s.lake_level_m;
-  in.threshold_m2 = 250000;
+  in.threshold_m2 = kChannelThresholdM2;
   in.seed = s.seed;
   h.streams = extract_streams(in);
   for (const StreamLine& line : h.streams) {

@@ -24,6 +24,23 @@ double gorge_m(double grade, double area_km2) {
          std::min(1.0, std::sqrt(area_km2) / 1.5);
 }
 
+// The least fall of a bed per metre of channel (0.5 m/km): enough for D8 to follow the
+// channel on the DEM's Float32 heights, small enough to stay below a floodplain's surface.
+constexpr double kMinFall = 0.0005;
+
+// The lowest ground within about 20 m of p (a 5 x 5 pattern at 10 m): a bed below it sits below
+// any hollow beside the line, so no pit next to the channel is lower than the channel.
+double lowest_ground(const FloatGrid& ground, Point p) {
+  double z = std::numeric_limits<double>::infinity();
+  for (int dy = -2; dy <= 2; ++dy) {
+    for (int dx = -2; dx <= 2; ++dx) {
+      if (dx * dx + dy * dy > 5) continue;
+      z = std::min(z, sample(ground, {p.x + 10.0 * dx, p.y + 10.0 * dy}));
+    }
+  }
+  return z;
+}
+
 // One pass of the four-point scheme (Dyn, Levin & Gregory 1987): original vertices stay, a
 // new one goes between each pair; ends are extended by reflection. Beds are interpolated
 // linearly, so they still never rise.
@@ -125,12 +142,14 @@ std::vector<StreamLine> extract_streams(const StreamInputs& in) {
   // Where each stream ends, and the floor its beds keep to, downstream first.
   constexpr double kNone = -std::numeric_limits<double>::infinity();
   std::vector<double> floor(n, kNone);
+  std::vector<double> to_mouth(n, 0);  // metres along the channel to where it ends
   std::vector<Point> end_point(n);
   for (std::int32_t c : f.order) {
     if (!is_stream[c]) continue;
     std::int32_t r = f.receiver[c];
     if (r >= 0 && is_stream[r]) {
       floor[c] = floor[r];
+      to_mouth[c] = to_mouth[r] + distance(pos[c], pos[r]);
     } else if (r >= 0 && sinks[r] == Sink::river) {
       end_point[c] = in.river_point(pos[c]);
       floor[c] = in.river_bed_m(end_point[c]);
@@ -153,6 +172,7 @@ std::vector<StreamLine> extract_streams(const StreamInputs& in) {
         p.y = b.min_y + half;
       end_point[c] = p;
     }
+    if (!(r >= 0 && is_stream[r])) to_mouth[c] = distance(pos[c], end_point[c]);
   }
   // Beds, upstream first.
   std::vector<double> bed(n, std::numeric_limits<double>::infinity());
@@ -165,12 +185,17 @@ std::vector<StreamLine> extract_streams(const StreamInputs& in) {
       grade = (f.filled[c] - f.filled[down]) / std::max(distance(centre(c), centre(down)), 1.0);
     }
     double area_km2 = f.area_m2[c] / 1e6;
-    double own =
-        std::min(static_cast<double>(f.filled[c]) - incision_m(area_km2) - gorge_m(grade, area_km2),
-                 sample(*in.ground, pos[c]));
-    bed[c] = std::max(std::min(bed[c], own), floor[c]);
+    // Below both the filled surface and the ground under the (meandering) vertex, so the
+    // channel is incised wherever the line runs.
+    double own = std::min(static_cast<double>(f.filled[c]), lowest_ground(*in.ground, pos[c])) -
+                 incision_m(area_km2) - gorge_m(grade, area_km2);
+    // Strictly falling: at least kMinFall per metre below every bed upstream, and above the
+    // floor by kMinFall per metre still to go, so no reach is a flat.
+    bed[c] = std::max(std::min(bed[c], own), floor[c] + kMinFall * to_mouth[c]);
     std::int32_t r = f.receiver[c];
-    if (r >= 0 && is_stream[r]) bed[r] = std::min(bed[r], bed[c]);
+    if (r >= 0 && is_stream[r]) {
+      bed[r] = std::min(bed[r], bed[c] - kMinFall * distance(pos[c], pos[r]));
+    }
   }
   // Lines: start at sources and where the order rises; follow while the order holds.
   std::vector<StreamLine> lines;
