@@ -153,7 +153,7 @@ std::vector<LandcoverArea> classify_landcover(const Scenario& s, const FloatGrid
 
       // Marsh: flat and wet.
       double wetness = std::max(
-          {ramp(in.twi[i], 10.5, 12.5) + 0.4 * n2, hollow ? 0.6 + 0.4 * n2 : -1.0,
+          {ramp(in.twi[i], 13.5, 15.5) + 0.4 * n2, hollow ? 0.6 + 0.4 * n2 : -1.0,
            std::min(ramp(-lake, -0.26, -0.16), ramp(s.lake_level_m + 2.5 - z, -0.5, 0.5)) +
                0.3 * n2,
            std::min({ramp(2.4 - above_bed, -0.4, 0.4), ramp(n, 0.15, 0.35), ramp(n2, -0.1, 0.1)})});

@@ -47,16 +47,16 @@ double Scenario::escarpment_y(double x) const {
   double u = u_of(x);
   // Spurs and re-entrants: a softened |sin| makes narrow re-entrants cutting back north into
   // the plateau between broad, rounded spurs, about 1.7 km apart.
-  double w = wave(u, 3400, escarpment_shape_phase[0]);
+  double w = wave(u, 2700, escarpment_shape_phase[0]);
   double bays = 1 - 2 * std::sqrt(w * w + 0.03);
   return kAreaSouth + 10100 + 550 * wave(u, 11000, escarpment_phase[0]) +
-         230 * wave(u, 4300, escarpment_phase[1]) + 190 * bays;
+         230 * wave(u, 4300, escarpment_phase[1]) + 280 * bays;
 }
 
 double Scenario::escarpment_width_m(double x) const {
-  // From a cliff-like 160 m to a broad 600 m slope.
+  // From a steep 240 m face to a broad 860 m slope.
   double t = 0.5 + 0.5 * wave(u_of(x), 7000, escarpment_phase[2]);
-  return 160 + 440 * t * t;
+  return 240 + 620 * t * t;
 }
 
 double Scenario::escarpment_height_m(double x) const {

@@ -134,8 +134,8 @@ void lay_out_streets(StreetContext& ctx, const Place& village, Random& rng,
     }
   }
   if (!best) return;
-  // 500-700 m upstream from where the stream passes closest, or its source.
-  double want = rng.uniform(500, 700), run = 0;
+  // 350-550 m upstream from where the stream passes closest, or its source.
+  double want = rng.uniform(350, 550), run = 0;
   std::size_t k = best_k;
   while (k > 0 && run < want) {
     run += distance(best->line[k], best->line[k - 1]);
@@ -158,6 +158,10 @@ void lay_out_streets(StreetContext& ctx, const Place& village, Random& rng,
     for (const Point& p : line) {
       if ((s.river_y(p.x) < p.y ? 1 : -1) != side) return;  // would cross the river
     }
+    // The lane ends where the valley steepens (a street does not zigzag up a slope).
+    std::size_t end = 1;
+    while (end < line.size() && slope_at(dem, line[end]) < 0.09) ++end;
+    line.resize(end);
     add_street(ctx, line, roads);
   }
 }

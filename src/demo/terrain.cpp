@@ -16,7 +16,7 @@ double smoothstep(double t) {
 }
 
 struct Seeds {
-  std::uint64_t ridges, hills, detail, floodplain, plateau;
+  std::uint64_t ridges, hills, detail, floodplain, plateau, valleys, warp;
 };
 
 double height_at(const Scenario& s, const Seeds& k, double x, double y) {
@@ -56,7 +56,17 @@ double height_at(const Scenario& s, const Seeds& k, double x, double y) {
   double r = ridged(k.ridges, u / 2700, v / 2700, 6);
   double h = fbm(k.hills, u / 1500, v / 1500, 5);
   double d = fbm(k.detail, u / 260, v / 260, 3);
-  double hills = base + plateau + amp * (0.7 * r + 0.3 * (0.5 + 0.5 * h)) + 5 * d + 60 * ne;
+  // Dissection: a network of narrow valleys (inverted ridged noise, its crests become
+  // V-shaped troughs) over a warped domain, so slopes drain into branching valleys instead of
+  // running as even planes; deepest on the valley sides and the escarpment, shallower on the
+  // plateau's dry limestone.
+  double wu = u + 350 * fbm(k.warp, u / 2400, v / 2400, 2);
+  double wv = v + 350 * fbm(k.warp + 1, u / 2400, v / 2400, 2);
+  double depth =
+      55 * smoothstep(out / 450) * (1 - 0.45 * step * (1 - smoothstep((esc + w - y) / w)));
+  double valleys = depth * ridged(k.valleys, wu / 1300, wv / 1300, 4);
+  double hills =
+      base + plateau + amp * (0.7 * r + 0.3 * (0.5 + 0.5 * h)) + 5 * d + 60 * ne - valleys;
   return flood * (1 - t) + hills * t;
 }
 
@@ -64,7 +74,8 @@ double height_at(const Scenario& s, const Seeds& k, double x, double y) {
 
 FloatGrid synthesize_terrain(const Scenario& s) {
   FloatGrid dem(s.dem, 0.0f);
-  Seeds k{s.seed * 31 + 1, s.seed * 31 + 2, s.seed * 31 + 3, s.seed * 31 + 4, s.seed * 31 + 5};
+  Seeds k{s.seed * 31 + 1, s.seed * 31 + 2, s.seed * 31 + 3, s.seed * 31 + 4,
+          s.seed * 31 + 5, s.seed * 31 + 6, s.seed * 31 + 8};
   parallel_rows(s.dem.height, [&](int row) {
     double y = s.dem.centre_y(row);
     for (int col = 0; col < s.dem.width; ++col) {
