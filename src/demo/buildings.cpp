@@ -80,7 +80,7 @@ std::vector<Building> place_buildings(const Scenario& s, const FloatGrid& dem,
     }
     if (place.kind != "village" && place.kind != "hamlet") continue;
     bool village = place.kind == "village";
-    double radius = village ? 420 + place.population / 6.0 : 160;
+    double radius = village ? 480 + place.population / 5.0 : 200;
     if (village) {
       // The church stands back from a street near the centre, its long side to it.
       bool placed = false;
@@ -105,9 +105,9 @@ std::vector<Building> place_buildings(const Scenario& s, const FloatGrid& dem,
       for (std::size_t i = 1; i < line.size(); ++i) {
         since += distance(line[i - 1], line[i]);
         double d = distance(line[i], place.at);
-        if (d > radius || since < rng.uniform(11, 17)) continue;
+        if (d > radius || since < rng.uniform(10, 14)) continue;
         // Denser at the centre.
-        if (rng.uniform() > 1.05 - d / radius) continue;
+        if (rng.uniform() > 1.3 - d / radius) continue;
         since = 0;
         Point dir = line[i] - line[i - 1];
         double a = std::atan2(dir.y, dir.x);
