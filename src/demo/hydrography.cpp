@@ -123,6 +123,34 @@ int trim_stream_heads(Hydrography& h, const FloatGrid& dem, double threshold_m2)
                std::make_move_iterator(h.lines.end()));
   h.streams = std::move(streams);
   h.lines = std::move(lines);
+  // Strahler (1957) orders again, since dropped heads may have been one of two equal-order
+  // lines meeting at a junction. Lines come upstream first, so feeders are done before the
+  // line they join; a line's order comes from the lines meeting at its first vertex and is
+  // never below that of a tributary joining it further down.
+  std::vector<int> top(h.streams.size(), 0), top_count(h.streams.size(), 0),
+      below(h.streams.size(), 1);
+  int top_order = 1;
+  for (std::size_t i = 0; i < h.streams.size(); ++i) {
+    StreamLine& l = h.streams[i];
+    int order = top[i] == 0 ? 1 : (top_count[i] >= 2 ? top[i] + 1 : top[i]);
+    l.strahler = std::max(order, below[i]);
+    h.lines[first + i].strahler = l.strahler;
+    top_order = std::max(top_order, l.strahler);
+    int r = l.receiver_line;
+    if (r < 0) continue;
+    const Point& head = h.streams[static_cast<std::size_t>(r)].line.front();
+    if (distance(l.line.back(), head) < 1e-9) {
+      if (l.strahler > top[r]) {
+        top[r] = l.strahler;
+        top_count[r] = 1;
+      } else if (l.strahler == top[r]) {
+        ++top_count[r];
+      }
+    } else {
+      below[r] = std::max(below[r], l.strahler);
+    }
+  }
+  for (std::size_t i = 0; i < first; ++i) h.lines[i].strahler = top_order + 1;
   return removed;
 }
 

@@ -229,8 +229,11 @@ Settlements lay_out_settlements(const Scenario& s, const FloatGrid& dem, const H
 
   // The railway keeps to the valley floor and its terraces.
   std::vector<int> rail;
-  Point stops[4] = {terrace(kAreaWest + 10, 1), Point{v1.at.x, v1.at.y - 150},
-                    Point{v2.at.x, v2.at.y + 150}, terrace(kAreaWest + W - 10, -1)};
+  // It enters from the west 150 m nearer the river than the main road, so the two do not
+  // share an end at the area's edge.
+  Point west_entry = terrace(kAreaWest + 10, 1) + Point{0, -150};
+  Point stops[4] = {west_entry, Point{v1.at.x, v1.at.y - 150}, Point{v2.at.x, v2.at.y + 150},
+                    terrace(kAreaWest + W - 10, -1)};
   for (int i = 1; i < 4; ++i) {
     std::vector<int> leg =
         rail_grid.route(rail_grid.node_at(stops[i - 1]), rail_grid.node_at(stops[i]), kRail);
