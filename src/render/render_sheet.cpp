@@ -143,6 +143,7 @@ RenderReport render_sheet(const project::Project& project, const style::Style& s
   // Draw, bottom to top: the style's layers with relief and contours at their places in its
   // order (by default area fills, relief, water areas, contours, water lines, transport,
   // buildings), then names, grid and collar. Each layer keeps its own optional content group.
+  ReliefDrawn relief;  // its strips are rendered while the output is written
   std::vector<const style::Layer*> drawn_layers;
   for (const PreparedLayer& l : prepared.layers) drawn_layers.push_back(l.layer);
   for (const DrawStep& step :
@@ -150,11 +151,9 @@ RenderReport render_sheet(const project::Project& project, const style::Style& s
     if (step.kind == DrawStep::Kind::relief) {
       // Multiply: relief over area fills only darkens them, never hides them.
       t0 = Clock::now();
-      if (!draw_relief(canvas.begin_group("relief", pdf::Blend::multiply), project, style, frame,
-                       sheet_contours.interval_m)) {
-        report.warnings.push_back("no relief under the map frame");
-      }
-      canvas.end_group();
+      relief = draw_relief(canvas, "relief", pdf::Blend::multiply, project, style, frame,
+                           sheet_contours.interval_m);
+      if (!relief.any_data) report.warnings.push_back("no relief under the map frame");
       report.seconds_relief = seconds_since(t0);
     } else if (step.kind == DrawStep::Kind::contours) {
       cairo_t* cr = canvas.begin_group("contours");
@@ -204,7 +203,8 @@ RenderReport render_sheet(const project::Project& project, const style::Style& s
     canvas.finish_pdf(out.temp_path(), registration(frame), meta, shown);
   }
   out.commit();
-  report.seconds_finish = seconds_since(t0);
+  report.seconds_finish = seconds_since(t0) - *relief.strip_seconds;
+  report.seconds_relief += *relief.strip_seconds;
   report.seconds_total = seconds_since(t_start);
   report.warnings.insert(report.warnings.end(), warnings.warnings().begin(),
                          warnings.warnings().end());
