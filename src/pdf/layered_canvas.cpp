@@ -283,6 +283,7 @@ void LayeredCanvas::finish_pdf(const std::filesystem::path& path, const GeoRegis
     writer.setDecodeLevel(qpdf_dl_none);
     writer.setMinimumPDFVersion("1.7");
     writer.write();
+    sink.flush();
     out.close();
   } catch (const Error&) {
     throw;

@@ -14,6 +14,7 @@
 #include "sheetmill/core/log.hpp"
 #include "sheetmill/terrain/dem.hpp"
 #include "sheetmill/terrain/resampling.hpp"
+#include "terrain/cubic_upsample.hpp"
 #include "terrain/dem_georef.hpp"
 
 namespace sheetmill::terrain {
@@ -189,57 +190,68 @@ Dem read_dem_window(const std::string& path, const RasterGrid& target,
     if (overview) warp_src = overview.get();
   }
 
-  GdalErrorScope errors;
-  CPLStringList tr_opts;
-  tr_opts.SetNameValue("SRC_SRS", crs_wkt(src_srs).c_str());
-  void* gen = GDALCreateGenImgProjTransformer2(warp_src, dst.get(), tr_opts.List());
-  if (!gen) {
-    throw_input_error(
-        path,
-        "cannot transform the DEM's CRS to the sheet's" +
-            (errors.last_failure().empty() ? std::string() : " (" + errors.last_failure() + ")"));
-  }
-  // An approximate transformer within 1/8 cell, as warping tools use by default.
-  void* approx = GDALCreateApproxTransformer(GDALGenImgProjTransform, gen, 0.125);
-  GDALApproxTransformerOwnsSubtransformer(approx, TRUE);
-
-  GDALWarpOptions* wo = GDALCreateWarpOptions();
-  wo->hSrcDS = warp_src;
-  wo->hDstDS = dst.get();
-  wo->nBandCount = 1;
-  wo->panSrcBands = static_cast<int*>(CPLMalloc(sizeof(int)));
-  wo->panDstBands = static_cast<int*>(CPLMalloc(sizeof(int)));
-  wo->panSrcBands[0] = 1;
-  wo->panDstBands[0] = 1;
-  wo->eResampleAlg = resampling_of(options.resampling, *src, src_srs, target, dst_srs, path);
-  wo->eWorkingDataType = GDT_Float32;
-  wo->dfWarpMemoryLimit = 128.0 * 1024 * 1024;  // per chunk; the target itself is separate
-  wo->pfnTransformer = GDALApproxTransform;
-  wo->pTransformerArg = approx;
-  if (has_nodata) {
-    wo->padfSrcNoDataReal = static_cast<double*>(CPLMalloc(sizeof(double)));
-    wo->padfSrcNoDataReal[0] = src_nodata;
-  }
-  wo->padfDstNoDataReal = static_cast<double*>(CPLMalloc(sizeof(double)));
-  wo->padfDstNoDataReal[0] = std::numeric_limits<double>::quiet_NaN();
-  wo->papszWarpOptions = CSLSetNameValue(wo->papszWarpOptions, "INIT_DEST", "NO_DATA");
-  wo->papszWarpOptions = CSLSetNameValue(wo->papszWarpOptions, "NUM_THREADS", "ALL_CPUS");
-
-  CPLErr err = CE_Failure;
-  {
-    GDALWarpOperation op;
-    if (op.Initialize(wo) == CE_None) {
-      err = op.ChunkAndWarpMulti(0, 0, target.width, target.height);
+  const GDALResampleAlg alg =
+      resampling_of(options.resampling, *src, src_srs, target, dst_srs, path);
+  // The common relief case (cubic upsampling in the DEM's own CRS) without the warper; the
+  // same values (cubic_upsample.hpp), about ten times faster on a sheet.
+  const bool done = alg == GRA_Cubic && warp_src == src.get() &&
+                    detail::cubic_upsample_same_crs(
+                        *src, src_srs, dst_srs, target,
+                        has_nodata ? std::optional<double>(src_nodata) : std::nullopt, dem.z);
+  if (!done) {
+    GdalErrorScope errors;
+    CPLStringList tr_opts;
+    tr_opts.SetNameValue("SRC_SRS", crs_wkt(src_srs).c_str());
+    void* gen = GDALCreateGenImgProjTransformer2(warp_src, dst.get(), tr_opts.List());
+    if (!gen) {
+      throw_input_error(
+          path,
+          "cannot transform the DEM's CRS to the sheet's" +
+              (errors.last_failure().empty() ? std::string() : " (" + errors.last_failure() + ")"));
     }
-  }
-  GDALDestroyApproxTransformer(approx);
-  wo->pTransformerArg = nullptr;
-  GDALDestroyWarpOptions(wo);
-  dst.reset();
-  if (err != CE_None) {
-    throw_input_error(path, "reading the DEM failed" + (errors.last_failure().empty()
-                                                            ? std::string()
-                                                            : " (" + errors.last_failure() + ")"));
+    // An approximate transformer within 1/8 cell, as warping tools use by default.
+    void* approx = GDALCreateApproxTransformer(GDALGenImgProjTransform, gen, 0.125);
+    GDALApproxTransformerOwnsSubtransformer(approx, TRUE);
+
+    GDALWarpOptions* wo = GDALCreateWarpOptions();
+    wo->hSrcDS = warp_src;
+    wo->hDstDS = dst.get();
+    wo->nBandCount = 1;
+    wo->panSrcBands = static_cast<int*>(CPLMalloc(sizeof(int)));
+    wo->panDstBands = static_cast<int*>(CPLMalloc(sizeof(int)));
+    wo->panSrcBands[0] = 1;
+    wo->panDstBands[0] = 1;
+    wo->eResampleAlg = alg;
+    wo->eWorkingDataType = GDT_Float32;
+    wo->dfWarpMemoryLimit = 128.0 * 1024 * 1024;  // per chunk; the target itself is separate
+    wo->pfnTransformer = GDALApproxTransform;
+    wo->pTransformerArg = approx;
+    if (has_nodata) {
+      wo->padfSrcNoDataReal = static_cast<double*>(CPLMalloc(sizeof(double)));
+      wo->padfSrcNoDataReal[0] = src_nodata;
+    }
+    wo->padfDstNoDataReal = static_cast<double*>(CPLMalloc(sizeof(double)));
+    wo->padfDstNoDataReal[0] = std::numeric_limits<double>::quiet_NaN();
+    wo->papszWarpOptions = CSLSetNameValue(wo->papszWarpOptions, "INIT_DEST", "NO_DATA");
+    wo->papszWarpOptions = CSLSetNameValue(wo->papszWarpOptions, "NUM_THREADS", "ALL_CPUS");
+
+    CPLErr err = CE_Failure;
+    {
+      GDALWarpOperation op;
+      if (op.Initialize(wo) == CE_None) {
+        err = op.ChunkAndWarpMulti(0, 0, target.width, target.height);
+      }
+    }
+    GDALDestroyApproxTransformer(approx);
+    wo->pTransformerArg = nullptr;
+    GDALDestroyWarpOptions(wo);
+    dst.reset();
+    if (err != CE_None) {
+      throw_input_error(
+          path,
+          "reading the DEM failed" +
+              (errors.last_failure().empty() ? std::string() : " (" + errors.last_failure() + ")"));
+    }
   }
 
   const double mul = (has_scale ? band_scale : 1.0) * z_factor;

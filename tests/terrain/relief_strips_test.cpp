@@ -4,6 +4,8 @@
 // whole-window render, with no seam where bands join.
 #include "sheetmill/terrain/relief_strips.hpp"
 
+#include <gdal_utils.h>
+
 #include <catch2/catch.hpp>
 #include <cmath>
 
@@ -104,4 +106,57 @@ TEST_CASE("flattening over white is channel + (255 - alpha)", "[terrain]") {
   CHECK(rgb == std::vector<std::uint8_t>{255, 255, 255, 127, 127, 127, 0x20, 0x40, 0x60});
   const auto grey = flatten_grey(img);
   CHECK(grey == std::vector<std::uint8_t>{255, 127, 0x20});
+}
+
+TEST_CASE("cubic upsampling in the DEM's own CRS gives GDALWarp -r cubic's elevations",
+          "[terrain]") {
+  // Oracle: GDALWarp (the library form of GDAL's warp tool) with -r cubic (Keys 1981,
+  // a = -0.5) into the same grid. read_dem_window computes this case itself (no warper);
+  // the elevations must agree to float rounding, and a window reaching past the data (the
+  // warper's own path) must still agree with the same oracle.
+  test::TempDir dir("cubic-oracle");
+  const std::string wkt = fixture::wkt_of(32633);
+  RasterGrid src = fixture::make_grid(60, 50, 500000, 5200000, 30, wkt);
+  Dem dem = fixture::sample_dem(src, [](double e, double n) {
+    return 200 + 90 * std::sin(e / 170) * std::cos(n / 230) + (e - 500000) * 0.05;
+  });
+  const auto path = dir / "dem.tif";
+  fixture::write_geotiff(path, src, dem.z);
+  for (const RasterGrid& g : {fixture::make_grid(211, 173, 500100.3, 5199890.7, 7.1, wkt),
+                              fixture::make_grid(150, 120, 500020, 5199980, 12.5, wkt)}) {
+    CPLStringList argv;
+    for (const std::string& a : {std::string("-r"), std::string("cubic"), std::string("-ot"),
+                                 std::string("Float32"), std::string("-of"), std::string("MEM"),
+                                 std::string("-te"), std::to_string(g.geotransform[0]),
+                                 std::to_string(g.geotransform[3] + g.height * g.geotransform[5]),
+                                 std::to_string(g.geotransform[0] + g.width * g.geotransform[1]),
+                                 std::to_string(g.geotransform[3]), std::string("-ts"),
+                                 std::to_string(g.width), std::to_string(g.height)}) {
+      argv.AddString(a.c_str());
+    }
+    GDALWarpAppOptions* opts = GDALWarpAppOptionsNew(argv.List(), nullptr);
+    DatasetPtr in(GDALDataset::Open(path.c_str(), GDAL_OF_RASTER));
+    GDALDatasetH handles[] = {GDALDataset::ToHandle(in.get())};
+    DatasetPtr warped(GDALDataset::FromHandle(GDALWarp("", nullptr, 1, handles, opts, nullptr)));
+    GDALWarpAppOptionsFree(opts);
+    REQUIRE(warped);
+    std::vector<float> ref(static_cast<std::size_t>(g.width) * g.height);
+    REQUIRE(warped->GetRasterBand(1)->RasterIO(GF_Read, 0, 0, g.width, g.height, ref.data(),
+                                               g.width, g.height, GDT_Float32, 0, 0,
+                                               nullptr) == CE_None);
+    DemReadOptions o;
+    o.resampling = "cubic";
+    o.warn_coverage = false;
+    const Dem ours = read_dem_window(path.string(), g, o);
+    double worst = 0;
+    int compared = 0;
+    for (std::size_t i = 0; i < ref.size(); ++i) {
+      if (std::isnan(ours.z[i])) continue;
+      worst = std::max(worst, std::abs(static_cast<double>(ours.z[i]) - ref[i]));
+      ++compared;
+    }
+    INFO("grid " << g.width << " x " << g.height << ", " << compared << " cells compared");
+    CHECK(compared > static_cast<int>(ref.size() / 2));
+    CHECK(worst < 1e-3);  // float rounding of elevations near 300 m is about 3e-5
+  }
 }
