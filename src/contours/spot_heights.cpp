@@ -66,13 +66,16 @@ std::vector<SpotHeight> prominent_cells(const terrain::Dem& dem, double min_prom
   constexpr std::uint32_t none = 0xFFFFFFFFu;
   // Levels are elevations of cells (or -infinity), so floats hold them exactly; a peak's
   // prominence is computed from its col's level at the end, as peak minus col in double.
+  //
+  // A component's root is always its peak: a component begins as its peak alone, a merge hangs
+  // the ended roots under the survivor's, and a joining cell goes under the survivor's too. So
+  // one array per cell serves both as the root's reach of unknown ground while the component
+  // lives and as the peak's once it has ended.
   constexpr float never = -std::numeric_limits<float>::infinity();
   const float not_ended = std::numeric_limits<float>::quiet_NaN();
   std::vector<std::uint32_t> parent(n, none);  // none = not yet flooded
-  std::vector<std::uint32_t> peak(n, none);    // valid at roots
   std::vector<float> col(n, not_ended);        // at peaks once they end: the col's level
-  std::vector<float> touch(n, never);          // at roots: highest level reaching unknown ground
-  std::vector<float> touch_at_end(n, never);   // at peaks once they end
+  std::vector<float> touch(n, never);          // at roots/peaks: highest level reaching unknown
   auto find = [&](std::uint32_t x) {
     while (parent[x] != x) x = parent[x] = parent[parent[x]];
     return x;
@@ -89,7 +92,6 @@ std::vector<SpotHeight> prominent_cells(const terrain::Dem& dem, double min_prom
   std::uint32_t roots[8];
   for (std::uint32_t c : order) {
     parent[c] = c;
-    peak[c] = c;
     int cx = static_cast<int>(c % w), cy = static_cast<int>(c / w);
     const float own_touch = borders_unknown(cx, cy) ? level(c) : never;
     int nroots = 0;
@@ -110,16 +112,17 @@ std::vector<SpotHeight> prominent_cells(const terrain::Dem& dem, double min_prom
     // The surviving component is the one with the highest peak.
     std::uint32_t best = roots[0];
     for (int k = 1; k < nroots; ++k)
-      if (val(peak[roots[k]]) > val(peak[best])) best = roots[k];
+      if (val(roots[k]) > val(best)) best = roots[k];
     float merged_touch = std::max(own_touch, touch[best]);
     for (int k = 0; k < nroots; ++k) {
-      if (roots[k] == best) continue;
-      col[peak[roots[k]]] = level(c);
-      // The col itself may border unknown ground: a higher col could lie beyond it.
-      touch_at_end[peak[roots[k]]] = std::max(touch[roots[k]], own_touch);
+      const std::uint32_t ended = roots[k];  // its own peak
+      if (ended == best) continue;
       // Unknown ground reached through the ended component joins the survivor only at the col.
-      merged_touch = std::max(merged_touch, std::min(touch[roots[k]], level(c)));
-      parent[roots[k]] = best;
+      merged_touch = std::max(merged_touch, std::min(touch[ended], level(c)));
+      col[ended] = level(c);
+      // The col itself may border unknown ground: a higher col could lie beyond it.
+      touch[ended] = std::max(touch[ended], own_touch);
+      parent[ended] = best;
     }
     parent[c] = best;
     touch[best] = merged_touch;
@@ -128,11 +131,8 @@ std::vector<SpotHeight> prominent_cells(const terrain::Dem& dem, double min_prom
   std::vector<SpotHeight> out;
   for (std::uint32_t c : order) {
     double p = std::isnan(col[c]) ? -1.0 : val(c) - static_cast<double>(col[c]);
-    double reached_unknown = touch_at_end[c];
-    if (parent[c] == c && peak[c] == c && p < 0) {  // the highest peak
-      p = val(c) - lowest;
-      reached_unknown = touch[c];
-    }
+    const double reached_unknown = touch[c];
+    if (parent[c] == c && p < 0) p = val(c) - lowest;  // a peak that never ended
     if (p < min_prominence || p < 0) continue;
     if (!(val(c) - reached_unknown > min_prominence)) continue;
     int x = static_cast<int>(c % w), y = static_cast<int>(c / w);
