@@ -120,6 +120,7 @@ ReliefDrawn draw_relief(pdf::LayeredCanvas& canvas, const std::string& group, pd
   const int margin = 2;
   auto source = std::make_shared<terrain::ReliefSource>();
   source->dem_path = project.elevation.dem;
+  source->reader = std::make_shared<const terrain::DemReader>(source->dem_path);
   source->grid = grid_for_frame(frame, dpi, margin);
   source->read_options = dem_options(project);
   source->read_options.resampling = rs.resampling;  // auto: cubic when upsampling, else average

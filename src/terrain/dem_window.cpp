@@ -130,12 +130,14 @@ DatasetPtr decimated_view(GDALDataset& ds, const RasterGrid& target, double targ
 
 }  // namespace
 
-Dem read_dem_window(const std::string& path, const RasterGrid& target,
-                    const DemReadOptions& options) {
+namespace {
+
+Dem read_window(GDALDataset& src_ds, const std::string& path, const RasterGrid& target,
+                const DemReadOptions& options) {
   if (target.width <= 0 || target.height <= 0) {
     throw_internal_error("read_dem_window: empty target grid");
   }
-  DatasetPtr src = open_raster(path);
+  GDALDataset* src = &src_ds;
   if (src->GetRasterCount() < 1) throw_input_error(path, "the raster has no bands");
   if (!has_georeferencing(*src)) {
     throw_input_error(path, "the DEM has no georeferencing (no geotransform or control points)");
@@ -173,7 +175,7 @@ Dem read_dem_window(const std::string& path, const RasterGrid& target,
 
   // Read from an overview, or a decimated view, when the target is much coarser than the DEM.
   DatasetPtr overview;
-  GDALDataset* warp_src = src.get();
+  GDALDataset* warp_src = src;
   const double target_in_src = target_cell_in_source(*src, target, src_srs, dst_srs);
   int ovr = overview_level_for(*src, target_in_src);
   if (ovr >= 0) {
@@ -194,7 +196,7 @@ Dem read_dem_window(const std::string& path, const RasterGrid& target,
       resampling_of(options.resampling, *src, src_srs, target, dst_srs, path);
   // The common relief case (cubic upsampling in the DEM's own CRS) without the warper; the
   // same values (cubic_upsample.hpp), about ten times faster on a sheet.
-  const bool done = alg == GRA_Cubic && warp_src == src.get() &&
+  const bool done = alg == GRA_Cubic && warp_src == src &&
                     detail::cubic_upsample_same_crs(
                         *src, src_srs, dst_srs, target,
                         has_nodata ? std::optional<double>(src_nodata) : std::nullopt, dem.z);
@@ -270,6 +272,33 @@ Dem read_dem_window(const std::string& path, const RasterGrid& target,
               100.0 * static_cast<double>(valid) / static_cast<double>(n));
   }
   return dem;
+}
+
+}  // namespace
+
+Dem read_dem_window(const std::string& path, const RasterGrid& target,
+                    const DemReadOptions& options) {
+  if (target.width <= 0 || target.height <= 0) {
+    throw_internal_error("read_dem_window: empty target grid");
+  }
+  DatasetPtr src = open_raster(path);
+  return read_window(*src, path, target, options);
+}
+
+struct DemReader::Impl {
+  DatasetPtr dataset;
+};
+
+DemReader::DemReader(const std::string& path) : path_(path), impl_(std::make_unique<Impl>()) {
+  impl_->dataset = open_raster(path);
+}
+DemReader::~DemReader() = default;
+
+Dem DemReader::read(const RasterGrid& target, const DemReadOptions& options) const {
+  if (target.width <= 0 || target.height <= 0) {
+    throw_internal_error("DemReader::read: empty target grid");
+  }
+  return read_window(*impl_->dataset, path_, target, options);
 }
 
 double vertical_unit_m(const std::string& path, const DemReadOptions& options) {

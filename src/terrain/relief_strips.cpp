@@ -21,14 +21,12 @@ std::vector<RowStrip> plan_row_strips(int width, int height, long max_strip_pixe
 ReliefImage render_relief_rows(const ReliefSource& source, int row0, int rows) {
   if (rows <= 0) throw_internal_error("render_relief_rows: no rows");
   const RasterGrid band = sub_grid(source.grid, 0, row0, source.grid.width, rows);
-  if (!source.adjust) {
-    return render_relief_window(source.dem_path, band, source.read_options, source.params);
-  }
-  // The same as render_relief_window, keeping the band's DEM for the adjustment.
-  Dem dem = read_dem_window(source.dem_path, sub_grid(band, -1, -1, band.width + 2, rows + 2),
-                            source.read_options);
+  // As render_relief_window: the band grown by one cell on every side, rendered, cropped.
+  const RasterGrid grown = sub_grid(band, -1, -1, band.width + 2, rows + 2);
+  const Dem dem = source.reader ? source.reader->read(grown, source.read_options)
+                                : read_dem_window(source.dem_path, grown, source.read_options);
   ReliefImage image = render_relief_cropped(dem, source.params, 1);
-  source.adjust(image, dem, 1);
+  if (source.adjust) source.adjust(image, dem, 1);
   return image;
 }
 

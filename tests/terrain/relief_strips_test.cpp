@@ -80,6 +80,12 @@ TEST_CASE("relief rendered in bands equals the whole window within 1 DN, seams i
   }
   CHECK(worst <= 1);
 
+  // The DEM kept open between bands reads the same cells.
+  const ReliefImage fresh = render_relief_rows(source, 37, 37);
+  source.reader = std::make_shared<const DemReader>(source.dem_path);
+  CHECK(render_relief_rows(source, 37, 37).argb == fresh.argb);
+  CHECK(render_relief_rows(source, 74, 37).argb == render_relief_rows(source, 74, 37).argb);
+
   // The adjustment sees each band's own DEM, aligned with the image through the margin.
   int mismatched = 0;
   source.adjust = [&](ReliefImage& image, const Dem& d, int margin) {

@@ -13,6 +13,7 @@
 
 #include <cstdint>
 #include <functional>
+#include <memory>
 #include <string>
 #include <vector>
 
@@ -43,6 +44,9 @@ struct ReliefSource {
   DemReadOptions read_options;
   ReliefParams params;
   ReliefAdjust adjust;  // may be empty
+  // The DEM kept open between bands (null: opened for each band). Bands are then rendered one
+  // at a time.
+  std::shared_ptr<const DemReader> reader;
 };
 
 // Rows [row0, row0 + rows) of the source's grid, grid.width wide. The rows may reach beyond the
