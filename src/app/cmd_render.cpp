@@ -65,8 +65,8 @@ void add_render_command(CLI::App& app, Action& action, const GlobalOptions&) {
                   layer.labels_dropped);
       }
       log::info(
-          "wrote {} in {:.1f} s (relief {:.1f} s, contours {:.1f} s, features {:.1f} s, "
-          "labels {:.1f} s, finish {:.1f} s)",
+          "wrote {} in {:.2f} s (relief {:.2f} s, contours {:.2f} s, features {:.2f} s, "
+          "labels {:.2f} s, finish {:.2f} s)",
           report.output.string(), report.seconds_total, report.seconds_relief,
           report.seconds_contours, report.seconds_features, report.seconds_labels,
           report.seconds_finish);

@@ -49,6 +49,7 @@ void merge_into(const std::vector<fs::path>& inputs, const fs::path& temp,
   w.setOutputPipeline(&sink);
   w.setStaticID(false);
   w.write();
+  sink.flush();  // the sink gathers writes into blocks
   file.close();
   pdf::verify_pdf(temp, out_pages.getAllPages().size(), shown_as);
 }

@@ -24,7 +24,18 @@ void CairoSink::rethrow_if_failed() const {
 }
 
 void QpdfSink::write(unsigned char const* data, size_t len) {
-  writer_.write(data, len);
+  if (buffer_.size() + len > kBlock) flush();
+  if (len >= kBlock) {
+    writer_.write(data, len);
+    return;
+  }
+  buffer_.insert(buffer_.end(), data, data + len);
+}
+
+void QpdfSink::flush() {
+  if (buffer_.empty()) return;
+  writer_.write(buffer_.data(), buffer_.size());
+  buffer_.clear();
 }
 
 void verify_pdf(const std::filesystem::path& path, std::size_t pages, const std::string& shown_as) {

@@ -17,6 +17,7 @@
 
 #include "pdf/geo_viewport.hpp"
 #include "pdf/raster_export.hpp"
+#include "pdf/streamed_raster_pdf.hpp"
 #include "sheetmill/core/atomic_file.hpp"
 #include "sheetmill/core/error.hpp"
 #include "sheetmill/core/file_writer.hpp"
@@ -33,7 +34,8 @@ struct LayeredCanvas::Impl {
   struct Group {
     std::string name;
     Blend blend = Blend::normal;
-    CairoSurfacePtr recording;
+    CairoSurfacePtr recording;                       // or null, for a streamed raster
+    std::shared_ptr<const StreamedRaster> streamed;  // or null
   };
   double width_mm = 0;
   double height_mm = 0;
@@ -73,14 +75,15 @@ cairo_t* LayeredCanvas::begin_group(const std::string& name, Blend blend) {
   if (impl_->current) throw_internal_error("begin_group(" + name + ") inside another group");
   Impl::Group* group = nullptr;
   if (!impl_->groups.empty() && impl_->groups.back().name == name &&
-      impl_->groups.back().blend == blend) {
+      impl_->groups.back().blend == blend && impl_->groups.back().recording) {
     group = &impl_->groups.back();
   }
   if (!group) {
     cairo_rectangle_t extents{0, 0, impl_->width_mm, impl_->height_mm};
     impl_->groups.push_back(
         {name, blend,
-         CairoSurfacePtr(cairo_recording_surface_create(CAIRO_CONTENT_COLOR_ALPHA, &extents))});
+         CairoSurfacePtr(cairo_recording_surface_create(CAIRO_CONTENT_COLOR_ALPHA, &extents)),
+         nullptr});
     group = &impl_->groups.back();
   }
   impl_->current.reset(cairo_create(group->recording.get()));
@@ -94,6 +97,14 @@ void LayeredCanvas::end_group() {
   impl_->current.reset();
 }
 
+void LayeredCanvas::add_streamed_raster(const std::string& name, Blend blend,
+                                        StreamedRaster raster) {
+  if (impl_->current) throw_internal_error("add_streamed_raster(" + name + ") inside a group");
+  if (!raster.render) throw_internal_error("add_streamed_raster(" + name + ") without a renderer");
+  impl_->groups.push_back(
+      {name, blend, nullptr, std::make_shared<const StreamedRaster>(std::move(raster))});
+}
+
 namespace {
 
 // Composes one drawing onto the raster page with its blend.
@@ -102,6 +113,14 @@ void replay(cairo_t* cr, cairo_surface_t* recording, Blend blend = Blend::normal
   if (blend == Blend::multiply) cairo_set_operator(cr, CAIRO_OPERATOR_MULTIPLY);
   cairo_set_source_surface(cr, recording, 0, 0);
   cairo_paint(cr);
+  cairo_restore(cr);
+}
+
+// The same for a streamed raster: its strips, painted a band at a time.
+void replay_streamed(cairo_t* cr, const StreamedRaster& raster, Blend blend) {
+  cairo_save(cr);
+  if (blend == Blend::multiply) cairo_set_operator(cr, CAIRO_OPERATOR_MULTIPLY);
+  paint_streamed(cr, raster);
   cairo_restore(cr);
 }
 
@@ -143,8 +162,13 @@ void LayeredCanvas::finish_pdf(const std::filesystem::path& path, const GeoRegis
     check_cairo(cairo_surface_status(surface.get()), "creating the PDF");
     CairoPtr cr(cairo_create(surface.get()));
     cairo_scale(cr.get(), kPtPerMm, kPtPerMm);
+    int tag = 0;
     for (const auto& g : impl_->groups) {
-      replay(cr.get(), g.recording.get());
+      if (g.streamed) {
+        tag = paint_placeholders(cr.get(), *g.streamed, tag);
+      } else {
+        replay(cr.get(), g.recording.get());
+      }
       cairo_show_page(cr.get());
     }
     // One more, empty page: the composed page. Reusing a group's own page would make that
@@ -164,6 +188,11 @@ void LayeredCanvas::finish_pdf(const std::filesystem::path& path, const GeoRegis
   try {
     QPDF pdf;
     pdf.processFile(pages.path().c_str());
+    // Streamed rasters: each placeholder's stream becomes its strip, rendered as it is written.
+    std::vector<const StreamedRaster*> streamed;
+    for (const auto& g : impl_->groups)
+      if (g.streamed) streamed.push_back(g.streamed.get());
+    substitute_placeholders(pdf, streamed);
     QPDFPageDocumentHelper doc(pdf);
     std::vector<QPDFPageObjectHelper> all = doc.getAllPages();
     std::size_t n = impl_->groups.size();
@@ -254,6 +283,7 @@ void LayeredCanvas::finish_pdf(const std::filesystem::path& path, const GeoRegis
     writer.setDecodeLevel(qpdf_dl_none);
     writer.setMinimumPDFVersion("1.7");
     writer.write();
+    sink.flush();
     out.close();
   } catch (const Error&) {
     throw;
@@ -276,7 +306,12 @@ void LayeredCanvas::finish_png(const std::filesystem::path& path, double dpi,
   cairo_set_source_rgb(cr.get(), 1, 1, 1);
   cairo_paint(cr.get());
   cairo_scale(cr.get(), dpi / kMmPerInch, dpi / kMmPerInch);
-  for (const auto& g : impl_->groups) replay(cr.get(), g.recording.get(), g.blend);
+  for (const auto& g : impl_->groups) {
+    if (g.streamed)
+      replay_streamed(cr.get(), *g.streamed, g.blend);
+    else
+      replay(cr.get(), g.recording.get(), g.blend);
+  }
   check_cairo(cairo_status(cr.get()), "drawing the image");
   cr.reset();
   FileWriter out(path, shown);
@@ -311,7 +346,12 @@ void LayeredCanvas::finish_geotiff(const std::filesystem::path& path, double dpi
                            -px_mm * m_per_mm};
   write_geotiff_strips(path, shown_name(path, shown_as), w, h, gt, geo.crs_wkt, [&](cairo_t* cr) {
     cairo_scale(cr, dpi / kMmPerInch, dpi / kMmPerInch);
-    for (const auto& grp : impl_->groups) replay(cr, grp.recording.get(), grp.blend);
+    for (const auto& grp : impl_->groups) {
+      if (grp.streamed)
+        replay_streamed(cr, *grp.streamed, grp.blend);
+      else
+        replay(cr, grp.recording.get(), grp.blend);
+    }
   });
 }
 

@@ -29,9 +29,10 @@ DrawReport draw(pdf::LayeredCanvas& canvas, const SheetInputs& inputs, const Pre
     if (step.kind == DrawStep::Kind::relief) {
       // Multiply: relief over area fills only darkens them, never hides them.
       const auto t0 = std::chrono::steady_clock::now();
-      report.relief_drawn = draw_relief(canvas.begin_group("relief", pdf::Blend::multiply), project,
-                                        style, frame, sheet.contours.interval_m);
-      canvas.end_group();
+      const ReliefDrawn relief = draw_relief(canvas, "relief", pdf::Blend::multiply, project, style,
+                                             frame, sheet.contours.interval_m);
+      report.relief_drawn = relief.any_data;
+      report.strip_seconds = relief.strip_seconds;
       report.seconds_relief =
           std::chrono::duration<double>(std::chrono::steady_clock::now() - t0).count();
     } else if (step.kind == DrawStep::Kind::contours) {

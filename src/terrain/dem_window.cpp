@@ -14,6 +14,7 @@
 #include "sheetmill/core/log.hpp"
 #include "sheetmill/terrain/dem.hpp"
 #include "sheetmill/terrain/resampling.hpp"
+#include "terrain/cubic_upsample.hpp"
 #include "terrain/dem_georef.hpp"
 
 namespace sheetmill::terrain {
@@ -129,12 +130,14 @@ DatasetPtr decimated_view(GDALDataset& ds, const RasterGrid& target, double targ
 
 }  // namespace
 
-Dem read_dem_window(const std::string& path, const RasterGrid& target,
-                    const DemReadOptions& options) {
+namespace {
+
+Dem read_window(GDALDataset& src_ds, const std::string& path, const RasterGrid& target,
+                const DemReadOptions& options) {
   if (target.width <= 0 || target.height <= 0) {
     throw_internal_error("read_dem_window: empty target grid");
   }
-  DatasetPtr src = open_raster(path);
+  GDALDataset* src = &src_ds;
   if (src->GetRasterCount() < 1) throw_input_error(path, "the raster has no bands");
   if (!has_georeferencing(*src)) {
     throw_input_error(path, "the DEM has no georeferencing (no geotransform or control points)");
@@ -172,7 +175,7 @@ Dem read_dem_window(const std::string& path, const RasterGrid& target,
 
   // Read from an overview, or a decimated view, when the target is much coarser than the DEM.
   DatasetPtr overview;
-  GDALDataset* warp_src = src.get();
+  GDALDataset* warp_src = src;
   const double target_in_src = target_cell_in_source(*src, target, src_srs, dst_srs);
   int ovr = overview_level_for(*src, target_in_src);
   if (ovr >= 0) {
@@ -189,57 +192,68 @@ Dem read_dem_window(const std::string& path, const RasterGrid& target,
     if (overview) warp_src = overview.get();
   }
 
-  GdalErrorScope errors;
-  CPLStringList tr_opts;
-  tr_opts.SetNameValue("SRC_SRS", crs_wkt(src_srs).c_str());
-  void* gen = GDALCreateGenImgProjTransformer2(warp_src, dst.get(), tr_opts.List());
-  if (!gen) {
-    throw_input_error(
-        path,
-        "cannot transform the DEM's CRS to the sheet's" +
-            (errors.last_failure().empty() ? std::string() : " (" + errors.last_failure() + ")"));
-  }
-  // An approximate transformer within 1/8 cell, as warping tools use by default.
-  void* approx = GDALCreateApproxTransformer(GDALGenImgProjTransform, gen, 0.125);
-  GDALApproxTransformerOwnsSubtransformer(approx, TRUE);
-
-  GDALWarpOptions* wo = GDALCreateWarpOptions();
-  wo->hSrcDS = warp_src;
-  wo->hDstDS = dst.get();
-  wo->nBandCount = 1;
-  wo->panSrcBands = static_cast<int*>(CPLMalloc(sizeof(int)));
-  wo->panDstBands = static_cast<int*>(CPLMalloc(sizeof(int)));
-  wo->panSrcBands[0] = 1;
-  wo->panDstBands[0] = 1;
-  wo->eResampleAlg = resampling_of(options.resampling, *src, src_srs, target, dst_srs, path);
-  wo->eWorkingDataType = GDT_Float32;
-  wo->dfWarpMemoryLimit = 128.0 * 1024 * 1024;  // per chunk; the target itself is separate
-  wo->pfnTransformer = GDALApproxTransform;
-  wo->pTransformerArg = approx;
-  if (has_nodata) {
-    wo->padfSrcNoDataReal = static_cast<double*>(CPLMalloc(sizeof(double)));
-    wo->padfSrcNoDataReal[0] = src_nodata;
-  }
-  wo->padfDstNoDataReal = static_cast<double*>(CPLMalloc(sizeof(double)));
-  wo->padfDstNoDataReal[0] = std::numeric_limits<double>::quiet_NaN();
-  wo->papszWarpOptions = CSLSetNameValue(wo->papszWarpOptions, "INIT_DEST", "NO_DATA");
-  wo->papszWarpOptions = CSLSetNameValue(wo->papszWarpOptions, "NUM_THREADS", "ALL_CPUS");
-
-  CPLErr err = CE_Failure;
-  {
-    GDALWarpOperation op;
-    if (op.Initialize(wo) == CE_None) {
-      err = op.ChunkAndWarpMulti(0, 0, target.width, target.height);
+  const GDALResampleAlg alg =
+      resampling_of(options.resampling, *src, src_srs, target, dst_srs, path);
+  // The common relief case (cubic upsampling in the DEM's own CRS) without the warper; the
+  // same values (cubic_upsample.hpp), about ten times faster on a sheet.
+  const bool done = alg == GRA_Cubic && warp_src == src &&
+                    detail::cubic_upsample_same_crs(
+                        *src, src_srs, dst_srs, target,
+                        has_nodata ? std::optional<double>(src_nodata) : std::nullopt, dem.z);
+  if (!done) {
+    GdalErrorScope errors;
+    CPLStringList tr_opts;
+    tr_opts.SetNameValue("SRC_SRS", crs_wkt(src_srs).c_str());
+    void* gen = GDALCreateGenImgProjTransformer2(warp_src, dst.get(), tr_opts.List());
+    if (!gen) {
+      throw_input_error(
+          path,
+          "cannot transform the DEM's CRS to the sheet's" +
+              (errors.last_failure().empty() ? std::string() : " (" + errors.last_failure() + ")"));
     }
-  }
-  GDALDestroyApproxTransformer(approx);
-  wo->pTransformerArg = nullptr;
-  GDALDestroyWarpOptions(wo);
-  dst.reset();
-  if (err != CE_None) {
-    throw_input_error(path, "reading the DEM failed" + (errors.last_failure().empty()
-                                                            ? std::string()
-                                                            : " (" + errors.last_failure() + ")"));
+    // An approximate transformer within 1/8 cell, as warping tools use by default.
+    void* approx = GDALCreateApproxTransformer(GDALGenImgProjTransform, gen, 0.125);
+    GDALApproxTransformerOwnsSubtransformer(approx, TRUE);
+
+    GDALWarpOptions* wo = GDALCreateWarpOptions();
+    wo->hSrcDS = warp_src;
+    wo->hDstDS = dst.get();
+    wo->nBandCount = 1;
+    wo->panSrcBands = static_cast<int*>(CPLMalloc(sizeof(int)));
+    wo->panDstBands = static_cast<int*>(CPLMalloc(sizeof(int)));
+    wo->panSrcBands[0] = 1;
+    wo->panDstBands[0] = 1;
+    wo->eResampleAlg = alg;
+    wo->eWorkingDataType = GDT_Float32;
+    wo->dfWarpMemoryLimit = 128.0 * 1024 * 1024;  // per chunk; the target itself is separate
+    wo->pfnTransformer = GDALApproxTransform;
+    wo->pTransformerArg = approx;
+    if (has_nodata) {
+      wo->padfSrcNoDataReal = static_cast<double*>(CPLMalloc(sizeof(double)));
+      wo->padfSrcNoDataReal[0] = src_nodata;
+    }
+    wo->padfDstNoDataReal = static_cast<double*>(CPLMalloc(sizeof(double)));
+    wo->padfDstNoDataReal[0] = std::numeric_limits<double>::quiet_NaN();
+    wo->papszWarpOptions = CSLSetNameValue(wo->papszWarpOptions, "INIT_DEST", "NO_DATA");
+    wo->papszWarpOptions = CSLSetNameValue(wo->papszWarpOptions, "NUM_THREADS", "ALL_CPUS");
+
+    CPLErr err = CE_Failure;
+    {
+      GDALWarpOperation op;
+      if (op.Initialize(wo) == CE_None) {
+        err = op.ChunkAndWarpMulti(0, 0, target.width, target.height);
+      }
+    }
+    GDALDestroyApproxTransformer(approx);
+    wo->pTransformerArg = nullptr;
+    GDALDestroyWarpOptions(wo);
+    dst.reset();
+    if (err != CE_None) {
+      throw_input_error(
+          path,
+          "reading the DEM failed" +
+              (errors.last_failure().empty() ? std::string() : " (" + errors.last_failure() + ")"));
+    }
   }
 
   const double mul = (has_scale ? band_scale : 1.0) * z_factor;
@@ -258,6 +272,33 @@ Dem read_dem_window(const std::string& path, const RasterGrid& target,
               100.0 * static_cast<double>(valid) / static_cast<double>(n));
   }
   return dem;
+}
+
+}  // namespace
+
+Dem read_dem_window(const std::string& path, const RasterGrid& target,
+                    const DemReadOptions& options) {
+  if (target.width <= 0 || target.height <= 0) {
+    throw_internal_error("read_dem_window: empty target grid");
+  }
+  DatasetPtr src = open_raster(path);
+  return read_window(*src, path, target, options);
+}
+
+struct DemReader::Impl {
+  DatasetPtr dataset;
+};
+
+DemReader::DemReader(const std::string& path) : path_(path), impl_(std::make_unique<Impl>()) {
+  impl_->dataset = open_raster(path);
+}
+DemReader::~DemReader() = default;
+
+Dem DemReader::read(const RasterGrid& target, const DemReadOptions& options) const {
+  if (target.width <= 0 || target.height <= 0) {
+    throw_internal_error("DemReader::read: empty target grid");
+  }
+  return read_window(*impl_->dataset, path_, target, options);
 }
 
 double vertical_unit_m(const std::string& path, const DemReadOptions& options) {

@@ -63,8 +63,9 @@ void compose(const Dem& dem, const ReliefParams& params, const std::uint8_t* sha
   }
 }
 
-// The relief of `dem` without `margin` cells on every side (they only feed neighbours).
-ReliefImage render_inner(const Dem& dem, const ReliefParams& params, int margin) {
+}  // namespace
+
+ReliefImage render_relief_cropped(const Dem& dem, const ReliefParams& params, int margin) {
   if (params.tint) validate_ramp(params.ramp, "relief tint");
   ReliefImage img;
   img.width = std::max(0, dem.width() - 2 * margin);
@@ -82,13 +83,12 @@ ReliefImage render_inner(const Dem& dem, const ReliefParams& params, int margin)
   });
   return img;
 }
-}  // namespace
 
 ReliefImage render_relief(const Dem& dem, const ReliefParams& params) {
   if (params.shade && params.shade_strength > 0 && !dem.z.empty()) {
     hillshade_rows(dem, params.shading, 0, 0, nullptr);  // validates the parameters up front
   }
-  return render_inner(dem, params, 0);
+  return render_relief_cropped(dem, params, 0);
 }
 
 RasterGrid sub_grid(const RasterGrid& grid, int col0, int row0, int width, int height) {
@@ -105,7 +105,7 @@ ReliefImage render_relief_window(const std::string& dem_path, const RasterGrid& 
                                  const DemReadOptions& read_options, const ReliefParams& params) {
   Dem dem = read_dem_window(dem_path, sub_grid(grid, -1, -1, grid.width + 2, grid.height + 2),
                             read_options);
-  return render_inner(dem, params, 1);
+  return render_relief_cropped(dem, params, 1);
 }
 
 void render_relief_strips(const std::string& dem_path, const RasterGrid& grid,

@@ -12,6 +12,7 @@
 #include <optional>
 #include <qpdf/Pipeline.hh>
 #include <string>
+#include <vector>
 
 #include "sheetmill/core/error.hpp"
 #include "sheetmill/core/file_writer.hpp"
@@ -29,14 +30,23 @@ struct CairoSink {
   void rethrow_if_failed() const;
 };
 
+// qpdf writes a PDF token by token: the sink gathers writes into 1 MiB blocks, so the checked
+// writer makes one system call per block, not one per token. The caller calls flush() after
+// QPDFWriter::write() for what is left (finish() does nothing: qpdf may call it while it
+// unwinds, where a write failure must not throw).
 class QpdfSink : public Pipeline {
  public:
-  explicit QpdfSink(FileWriter& w) : Pipeline("sheetmill output", nullptr), writer_(w) {}
+  explicit QpdfSink(FileWriter& w) : Pipeline("sheetmill output", nullptr), writer_(w) {
+    buffer_.reserve(kBlock);
+  }
   void write(unsigned char const* data, size_t len) override;
   void finish() override {}
+  void flush();
 
  private:
+  static constexpr std::size_t kBlock = 1 << 20;
   FileWriter& writer_;
+  std::vector<unsigned char> buffer_;
 };
 
 // Opens `path` with qpdf, without recovery, and checks it has `pages` pages; throws

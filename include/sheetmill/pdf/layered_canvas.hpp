@@ -19,6 +19,7 @@
 #include <vector>
 
 #include "sheetmill/core/geometry.hpp"
+#include "sheetmill/pdf/streamed_raster.hpp"
 
 namespace sheetmill::pdf {
 
@@ -56,6 +57,11 @@ class LayeredCanvas {
   // drawing as a whole; appending with another blend than the drawing's starts a new drawing.
   cairo_t* begin_group(const std::string& name, Blend blend = Blend::normal);
   void end_group();
+  // Adds a drawing of its own to the named group (like begin_group and end_group around it): a
+  // raster rendered strip by strip only while the output is written (streamed_raster.hpp), so
+  // the canvas never holds its pixels. The PDF gets one image object per strip; the raster
+  // exports paint the strips a band at a time.
+  void add_streamed_raster(const std::string& name, Blend blend, StreamedRaster raster);
 
   double width_mm() const;
   double height_mm() const;

@@ -81,6 +81,8 @@ Placement place(PreparedSheet& sheet);
 struct DrawReport {
   bool relief_drawn = true;  // false: no relief under the frame
   double seconds_relief = 0;
+  // Seconds the relief strips take while the output is written (render/relief_layer.hpp).
+  std::shared_ptr<double> strip_seconds = std::make_shared<double>(0);
 };
 
 // Draws `sheet` and `placement` onto `canvas` in the style's order, each layer in its group.

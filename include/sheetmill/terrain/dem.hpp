@@ -9,6 +9,7 @@
 
 #include <cmath>
 #include <cstddef>
+#include <memory>
 #include <optional>
 #include <string>
 #include <vector>
@@ -66,6 +67,23 @@ struct DemReadOptions {
 // stated.
 Dem read_dem_window(const std::string& path, const RasterGrid& target,
                     const DemReadOptions& options = {});
+
+// The same reads from a DEM kept open for many windows of one sheet (relief strips): the
+// blocks GDAL has decoded stay in its block cache between reads instead of being decoded again
+// for every window. Not for concurrent use: one read at a time.
+class DemReader {
+ public:
+  explicit DemReader(const std::string& path);  // throws like read_dem_window
+  ~DemReader();
+  DemReader(const DemReader&) = delete;
+  DemReader& operator=(const DemReader&) = delete;
+  Dem read(const RasterGrid& target, const DemReadOptions& options = {}) const;
+
+ private:
+  struct Impl;
+  std::string path_;
+  std::unique_ptr<Impl> impl_;
+};
 
 // The DEM's own cell size in metres (geometric mean of the two sides, at the centre latitude
 // for geographic DEMs), for choosing a working resolution.

@@ -46,6 +46,10 @@ struct ReliefImage {
 // as render_relief_window() does. Uses both cores.
 ReliefImage render_relief(const Dem& dem, const ReliefParams& params);
 
+// The relief of `dem` without `margin` cells on every side (they only feed the neighbours of the
+// cells kept). Uses both cores.
+ReliefImage render_relief_cropped(const Dem& dem, const ReliefParams& params, int margin);
+
 // Reads `grid` grown by one cell on every side from the DEM (read_dem_window), renders it and
 // returns exactly `grid`'s cells: the frame edge gets true neighbours, no seam.
 ReliefImage render_relief_window(const std::string& dem_path, const RasterGrid& grid,
