@@ -4,6 +4,7 @@
 #include "render/accuracy_notes.hpp"
 #include "render/contour_layer.hpp"
 #include "render/coverage.hpp"
+#include "render/print_options.hpp"
 #include "render/relief_layer.hpp"
 #include "sheetmill/contours/draw_contours.hpp"
 #include "sheetmill/core/atomic_file.hpp"
@@ -201,7 +202,14 @@ RenderReport render_sheet(const project::Project& project, const style::Style& s
     meta.subject = project.subtitle.empty() ? "Topographic sheet" : project.subtitle;
     meta.keywords = "topographic map; contours; " + frame.crs_name;
     meta.author = project.producer;
-    canvas.finish_pdf(out.temp_path(), registration(frame), meta, shown);
+    if (options.print_profile) {
+      TempFile screen(sibling_temp_path(output, "screen"), shown);
+      canvas.finish_pdf(screen.path(), registration(frame), meta, shown);
+      print::write_pdfx(screen.path(), out.temp_path(), pdfx_options(style, *options.print_profile),
+                        shown);
+    } else {
+      canvas.finish_pdf(out.temp_path(), registration(frame), meta, shown);
+    }
   }
   out.commit();
   report.seconds_finish = seconds_since(t0);

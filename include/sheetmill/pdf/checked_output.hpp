@@ -29,6 +29,18 @@ struct CairoSink {
   void rethrow_if_failed() const;
 };
 
+// A Cairo PNG stream with its resolution: passes the bytes to `sink` and puts a pHYs chunk
+// (PNG specification, ISO/IEC 15948 section 11.3.5.3: pixels per metre, unit 1) right after
+// the IHDR chunk, so the image opens at its print size.
+struct PngResolutionSink {
+  PngResolutionSink(CairoSink& s, double dpi) : sink(s), dpi(dpi) {}
+  CairoSink& sink;
+  double dpi;
+  std::string head;  // the signature and IHDR, until the chunk is written
+  bool done = false;
+  static cairo_status_t write(void* closure, const unsigned char* data, unsigned int length);
+};
+
 class QpdfSink : public Pipeline {
  public:
   explicit QpdfSink(FileWriter& w) : Pipeline("sheetmill output", nullptr), writer_(w) {}

@@ -1,0 +1,182 @@
+#include "sheetmill/print/colour_engine.hpp"
+
+#include <lcms2.h>
+
+#include <algorithm>
+#include <array>
+#include <fstream>
+#include <iterator>
+#include <vector>
+
+#include "sheetmill/core/error.hpp"
+#include "sheetmill/core/handles.hpp"
+
+namespace sheetmill::print {
+
+namespace {
+
+using ProfilePtr = std::unique_ptr<void, CDeleter<cmsCloseProfile>>;
+using TransformPtr = std::unique_ptr<void, CDeleter<cmsDeleteTransform>>;
+
+cmsUInt32Number lcms_intent(Intent i) {
+  switch (i) {
+    case Intent::perceptual:
+      return INTENT_PERCEPTUAL;
+    case Intent::saturation:
+      return INTENT_SATURATION;
+    case Intent::absolute_colorimetric:
+      return INTENT_ABSOLUTE_COLORIMETRIC;
+    case Intent::relative_colorimetric:
+      break;
+  }
+  return INTENT_RELATIVE_COLORIMETRIC;
+}
+
+std::string read_bytes(const std::filesystem::path& path) {
+  std::ifstream in(path, std::ios::binary);
+  if (!in) throw_input_error(path.string(), "cannot open the ICC profile");
+  return std::string(std::istreambuf_iterator<char>(in), {});
+}
+
+TransformPtr make_transform(void* from, cmsUInt32Number from_type, void* to,
+                            cmsUInt32Number to_type, cmsUInt32Number intent, cmsUInt32Number flags,
+                            const std::string& shown) {
+  TransformPtr t(
+      cmsCreateTransform(from, from_type, to, to_type, intent, flags | cmsFLAGS_NOCACHE));
+  if (!t) throw_input_error(shown, "Little CMS cannot build a transform with this profile");
+  return t;
+}
+
+}  // namespace
+
+std::filesystem::path default_cmyk_profile() {
+  return "/usr/share/color/icc/ghostscript/default_cmyk.icc";
+}
+
+const char* intent_name(Intent intent) {
+  switch (intent) {
+    case Intent::perceptual:
+      return "perceptual";
+    case Intent::saturation:
+      return "saturation";
+    case Intent::absolute_colorimetric:
+      return "absolute-colorimetric";
+    case Intent::relative_colorimetric:
+      break;
+  }
+  return "relative-colorimetric";
+}
+
+struct ColourEngine::Impl {
+  ColourSetup setup;
+  std::string bytes;
+  ProfilePtr cmyk, srgb, lab;
+  TransformPtr rgb_to_cmyk, cmyk_to_rgb, rgb_to_lab, cmyk_to_lab, rgb8_to_cmyk8;
+  std::array<double, 257> k_lightness{};  // L* of black ink alone at i/256
+};
+
+ColourEngine::ColourEngine(const ColourSetup& setup) : impl_(std::make_unique<Impl>()) {
+  Impl& m = *impl_;
+  m.setup = setup;
+  if (m.setup.profile.empty()) m.setup.profile = default_cmyk_profile();
+  const std::string shown = m.setup.profile.string();
+  m.bytes = read_bytes(m.setup.profile);
+  m.cmyk.reset(cmsOpenProfileFromMem(m.bytes.data(), static_cast<cmsUInt32Number>(m.bytes.size())));
+  if (!m.cmyk) throw_input_error(shown, "not an ICC profile Little CMS can read");
+  if (cmsGetColorSpace(m.cmyk.get()) != cmsSigCmykData) {
+    throw_input_error(shown, "expected a CMYK output profile, got another colour space");
+  }
+  if (cmsGetDeviceClass(m.cmyk.get()) != cmsSigOutputClass) {
+    throw_input_error(shown, "expected an output (printer) profile for the output intent");
+  }
+  m.srgb.reset(cmsCreate_sRGBProfile());
+  m.lab.reset(cmsCreateLab4Profile(nullptr));
+  const cmsUInt32Number intent = lcms_intent(m.setup.intent);
+  const cmsUInt32Number bpc =
+      m.setup.black_point_compensation ? cmsFLAGS_BLACKPOINTCOMPENSATION : 0;
+  m.rgb_to_cmyk =
+      make_transform(m.srgb.get(), TYPE_RGB_DBL, m.cmyk.get(), TYPE_CMYK_DBL, intent, bpc, shown);
+  m.rgb8_to_cmyk8 =
+      make_transform(m.srgb.get(), TYPE_RGB_8, m.cmyk.get(), TYPE_CMYK_8, intent, bpc, shown);
+  // Appearance and measurement: relative colorimetric, paper white as the white point.
+  m.cmyk_to_rgb = make_transform(m.cmyk.get(), TYPE_CMYK_DBL, m.srgb.get(), TYPE_RGB_DBL,
+                                 INTENT_RELATIVE_COLORIMETRIC, 0, shown);
+  m.rgb_to_lab = make_transform(m.srgb.get(), TYPE_RGB_DBL, m.lab.get(), TYPE_Lab_DBL,
+                                INTENT_RELATIVE_COLORIMETRIC, 0, shown);
+  m.cmyk_to_lab = make_transform(m.cmyk.get(), TYPE_CMYK_DBL, m.lab.get(), TYPE_Lab_DBL,
+                                 INTENT_RELATIVE_COLORIMETRIC, 0, shown);
+  for (std::size_t i = 0; i < m.k_lightness.size(); ++i) {
+    m.k_lightness[i] = lab_of(Cmyk{0, 0, 0, static_cast<double>(i) / 256.0}).L;
+  }
+}
+
+ColourEngine::~ColourEngine() = default;
+
+const ColourSetup& ColourEngine::setup() const {
+  return impl_->setup;
+}
+
+const std::string& ColourEngine::profile_bytes() const {
+  return impl_->bytes;
+}
+
+std::string ColourEngine::description() const {
+  char buf[256] = {0};
+  cmsGetProfileInfoASCII(impl_->cmyk.get(), cmsInfoDescription, "en", "US", buf, sizeof buf);
+  return buf;
+}
+
+Cmyk ColourEngine::cmyk_of(const Colour& c) const {
+  double in[3] = {std::clamp(c.r, 0.0, 1.0), std::clamp(c.g, 0.0, 1.0), std::clamp(c.b, 0.0, 1.0)};
+  double out[4] = {0, 0, 0, 0};  // Little CMS's CMYK doubles are ink percentages
+  cmsDoTransform(impl_->rgb_to_cmyk.get(), in, out, 1);
+  auto unit = [](double v) { return std::clamp(v / 100.0, 0.0, 1.0); };
+  return {unit(out[0]), unit(out[1]), unit(out[2]), unit(out[3])};
+}
+
+Colour ColourEngine::srgb_of(const Cmyk& k) const {
+  double in[4] = {k.c * 100, k.m * 100, k.y * 100, k.k * 100};
+  double out[3] = {0, 0, 0};
+  cmsDoTransform(impl_->cmyk_to_rgb.get(), in, out, 1);
+  return {std::clamp(out[0], 0.0, 1.0), std::clamp(out[1], 0.0, 1.0), std::clamp(out[2], 0.0, 1.0),
+          1};
+}
+
+Lab ColourEngine::lab_of(const Colour& c) const {
+  double in[3] = {c.r, c.g, c.b};
+  cmsCIELab out{};
+  cmsDoTransform(impl_->rgb_to_lab.get(), in, &out, 1);
+  return {out.L, out.a, out.b};
+}
+
+Lab ColourEngine::lab_of(const Cmyk& k) const {
+  double in[4] = {k.c * 100, k.m * 100, k.y * 100, k.k * 100};
+  cmsCIELab out{};
+  cmsDoTransform(impl_->cmyk_to_lab.get(), in, &out, 1);
+  return {out.L, out.a, out.b};
+}
+
+void ColourEngine::convert_rgb8(const unsigned char* rgb, unsigned char* cmyk,
+                                std::size_t pixels) const {
+  constexpr std::size_t kChunk = 1 << 16;
+  for (std::size_t i = 0; i < pixels; i += kChunk) {
+    auto n = static_cast<cmsUInt32Number>(std::min(kChunk, pixels - i));
+    cmsDoTransform(impl_->rgb8_to_cmyk8.get(), rgb + 3 * i, cmyk + 4 * i, n);
+  }
+}
+
+double ColourEngine::k_for_grey(double v) const {
+  const double target = lab_of(Colour{v, v, v, 1}).L;
+  const auto& L = impl_->k_lightness;  // falls as k rises
+  if (target >= L.front()) return 0;
+  if (target < L.back() - 0.5) return -1;
+  for (std::size_t i = 1; i < L.size(); ++i) {
+    if (L[i] <= target) {
+      double t = (L[i - 1] - target) / std::max(1e-9, L[i - 1] - L[i]);
+      return (static_cast<double>(i - 1) + t) / 256.0;
+    }
+  }
+  return 1;
+}
+
+}  // namespace sheetmill::print
