@@ -131,7 +131,80 @@ Cmyk ColourEngine::cmyk_of(const Colour& c) const {
   double out[4] = {0, 0, 0, 0};  // Little CMS's CMYK doubles are ink percentages
   cmsDoTransform(impl_->rgb_to_cmyk.get(), in, out, 1);
   auto unit = [](double v) { return std::clamp(v / 100.0, 0.0, 1.0); };
-  return {unit(out[0]), unit(out[1]), unit(out[2]), unit(out[3])};
+  Cmyk k{unit(out[0]), unit(out[1]), unit(out[2]), unit(out[3])};
+  const ColourSetup& s = impl_->setup;
+  if (s.intent == Intent::relative_colorimetric && !s.black_point_compensation) {
+    k = refine(k, lab_of(Colour{in[0], in[1], in[2], 1}));
+  }
+  return k;
+}
+
+// The profile's inverse table (B2A) is coarse near the gamut's edge. For the colorimetric
+// intent, a few Gauss-Newton steps on three of the four inks (cyan, magenta and yellow first,
+// black kept as the profile generated it; when one of those is at its limit, black stands in
+// for it) bring the print's CIELAB, through the forward table (A2B), nearer the aim. A step
+// is kept only when CIEDE2000 falls, so the result is never worse than the profile's own.
+Cmyk ColourEngine::refine(Cmyk start, const Lab& aim) const {
+  auto get = [](Cmyk& k, int i) -> double& {
+    return i == 0 ? k.c : i == 1 ? k.m : i == 2 ? k.y : k.k;
+  };
+  Cmyk best_k = start;
+  double best = ciede2000(aim, lab_of(start));
+  const int sets[4][3] = {{0, 1, 2}, {0, 1, 3}, {0, 2, 3}, {1, 2, 3}};
+  for (const auto& vars : sets) {
+    Cmyk k = start;
+    double here = ciede2000(aim, lab_of(k));
+    for (int iter = 0; iter < 10 && here > 0.05; ++iter) {
+      const Lab at = lab_of(k);
+      double jac[3][3];  // d(L, a, b) / d(the three inks)
+      for (int j = 0; j < 3; ++j) {
+        Cmyk p = k;
+        double& v = get(p, vars[j]);
+        const double step = v + 1e-3 <= 1 ? 1e-3 : -1e-3;
+        v += step;
+        Lab l = lab_of(p);
+        jac[0][j] = (l.L - at.L) / step;
+        jac[1][j] = (l.a - at.a) / step;
+        jac[2][j] = (l.b - at.b) / step;
+      }
+      const double r[3] = {aim.L - at.L, aim.a - at.a, aim.b - at.b};
+      // Cramer's rule; a singular Jacobian ends this set.
+      auto det3 = [](const double m[3][3]) {
+        return m[0][0] * (m[1][1] * m[2][2] - m[1][2] * m[2][1]) -
+               m[0][1] * (m[1][0] * m[2][2] - m[1][2] * m[2][0]) +
+               m[0][2] * (m[1][0] * m[2][1] - m[1][1] * m[2][0]);
+      };
+      const double det = det3(jac);
+      if (std::abs(det) < 1e-9) break;
+      double d[3];
+      for (int j = 0; j < 3; ++j) {
+        double m[3][3];
+        for (int row = 0; row < 3; ++row)
+          for (int col = 0; col < 3; ++col) m[row][col] = col == j ? r[row] : jac[row][col];
+        d[j] = det3(m) / det;
+      }
+      bool improved = false;
+      for (double scale = 1; scale > 0.05 && !improved; scale /= 2) {
+        Cmyk t = k;
+        for (int j = 0; j < 3; ++j) {
+          double& v = get(t, vars[j]);
+          v = std::clamp(v + scale * d[j], 0.0, 1.0);
+        }
+        double e = ciede2000(aim, lab_of(t));
+        if (e < here) {
+          here = e;
+          k = t;
+          improved = true;
+        }
+      }
+      if (!improved) break;
+    }
+    if (here < best) {
+      best = here;
+      best_k = k;
+    }
+  }
+  return best_k;
 }
 
 Colour ColourEngine::srgb_of(const Cmyk& k) const {

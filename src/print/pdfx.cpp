@@ -226,11 +226,13 @@ PdfxReport write_pdfx(const std::filesystem::path& in, const std::filesystem::pa
       // No bleed beyond the paper: the sheet's margin is white (docs/print.md).
       QOH media = p.getKey("/MediaBox");
       double b = options.bleed_mm * kPtPerMm;
+      // The trim box is the media box, item for item (a rounded copy could poke out of it).
       QOH trim = QOH::newArray(), bleed = QOH::newArray();
       for (int i = 0; i < 4; ++i) {
-        double v = media.getArrayItem(i).getNumericValue();
-        trim.appendItem(QOH::newReal(v, 4));
-        bleed.appendItem(QOH::newReal(v + (i < 2 ? -b : b), 4));
+        QOH v = media.getArrayItem(i);
+        trim.appendItem(v.shallowCopy());
+        bleed.appendItem(b > 0 ? QOH::newReal(v.getNumericValue() + (i < 2 ? -b : b), 4)
+                               : v.shallowCopy());
       }
       p.replaceKey("/TrimBox", trim);
       p.replaceKey("/BleedBox", bleed);

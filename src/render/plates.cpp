@@ -44,7 +44,7 @@ bool inks(const style::Layer& layer) {
       for (const auto& s : r.line->strokes)
         if (inks(s)) return true;
       for (const auto& m : r.line->marks)
-        if (inks(m.stroke) || (m.symbol && inks(*m.symbol))) return true;
+        if (m.symbol ? inks(*m.symbol) : inks(m.stroke)) return true;  // a symbol replaces the tick
     }
     if (r.area) {
       const auto& a = *r.area;

@@ -15,21 +15,21 @@
 using namespace sheetmill;
 
 namespace {
-pdf::LayeredCanvas small_canvas() {
-  pdf::LayeredCanvas canvas(50, 30);
+void draw(pdf::LayeredCanvas& canvas) {
   cairo_t* cr = canvas.begin_group("ink");
   cairo_set_source_rgb(cr, 0.2, 0.3, 0.4);
   cairo_rectangle(cr, 5, 5, 20, 10);
   cairo_fill(cr);
   canvas.end_group();
-  return canvas;
 }
 }  // namespace
 
 TEST_CASE("the PNG export has a pHYs chunk with its dpi, read by libpng", "[pdf]") {
   test::TempDir dir("png-dpi");
   auto path = dir / "sheet.png";
-  small_canvas().finish_png(path, 200);
+  pdf::LayeredCanvas canvas(50, 30);
+  draw(canvas);
+  canvas.finish_png(path, 200);
   FILE* f = std::fopen(path.c_str(), "rb");
   REQUIRE(f);
   png_structp png = png_create_read_struct(PNG_LIBPNG_VER_STRING, nullptr, nullptr, nullptr);
@@ -54,7 +54,9 @@ TEST_CASE("the GeoTIFF export has TIFF resolution tags, read by GDAL", "[pdf]") 
   pdf::GeoRegistration geo;
   geo.frame_page_mm = Box::of(0, 0, 50, 30);
   geo.neatline_ground = {{1000, 2000}, {2250, 2000}, {2250, 2750}, {1000, 2750}};
-  small_canvas().finish_geotiff(path, 120, geo);
+  pdf::LayeredCanvas canvas(50, 30);
+  draw(canvas);
+  canvas.finish_geotiff(path, 120, geo);
   gdal_init();
   GDALDatasetUniquePtr ds(GDALDataset::Open(path.c_str(), GDAL_OF_RASTER | GDAL_OF_READONLY));
   REQUIRE(ds);

@@ -10,6 +10,7 @@
 #include "sheetmill/print/pdfx.hpp"
 
 #include <cairo.h>
+#include <lcms2.h>
 
 #include <catch2/catch.hpp>
 #include <fstream>
@@ -42,10 +43,11 @@ Colour hex(const std::string& h) {
 }
 
 struct Fixture {
+  explicit Fixture(bool black_point_compensation = true) { make(black_point_compensation); }
   test::TempDir dir{"pdfx"};
   std::filesystem::path screen = dir / "screen.pdf", print = dir / "print.pdf";
   print::PdfxReport report;
-  Fixture() {
+  void make(bool black_point_compensation) {
     pdf::LayeredCanvas canvas(210, 297);
     cairo_t* cr = canvas.begin_group("swatches");
     double y = 20;
@@ -87,6 +89,7 @@ struct Fixture {
     canvas.finish_pdf(screen, geo, meta);
     print::PdfxOptions o;
     o.colour.profile = print::default_cmyk_profile();
+    o.colour.black_point_compensation = black_point_compensation;
     report = print::write_pdfx(screen, print, o, print.string());
   }
 };
@@ -271,10 +274,36 @@ TEST_CASE("the PDF/X-4 file has no RGB colour and its fonts embedded", "[print]"
   CHECK(fonts >= 1);
 }
 
+// Little CMS's own gamut check (a proofing transform with cmsFLAGS_GAMUTCHECK): does the
+// output profile print this sRGB colour? Out-of-gamut colours cannot come back unchanged.
+bool in_gamut(const Colour& c) {
+  cmsHPROFILE srgb = cmsCreate_sRGBProfile();
+  cmsHPROFILE cmyk = cmsOpenProfileFromFile(print::default_cmyk_profile().c_str(), "r");
+  REQUIRE(cmyk);
+  cmsUInt16Number alarm[cmsMAXCHANNELS] = {0x1234, 0x5678, 0x9abc};
+  cmsSetAlarmCodes(alarm);
+  cmsHTRANSFORM t = cmsCreateProofingTransform(
+      srgb, TYPE_RGB_16, srgb, TYPE_RGB_16, cmyk, INTENT_RELATIVE_COLORIMETRIC,
+      INTENT_RELATIVE_COLORIMETRIC, cmsFLAGS_GAMUTCHECK | cmsFLAGS_SOFTPROOFING | cmsFLAGS_NOCACHE);
+  REQUIRE(t);
+  cmsUInt16Number in[3] = {static_cast<cmsUInt16Number>(c.r * 65535 + 0.5),
+                           static_cast<cmsUInt16Number>(c.g * 65535 + 0.5),
+                           static_cast<cmsUInt16Number>(c.b * 65535 + 0.5)};
+  cmsUInt16Number out[3] = {0, 0, 0};
+  cmsDoTransform(t, in, out, 1);
+  cmsDeleteTransform(t);
+  cmsCloseProfile(cmyk);
+  cmsCloseProfile(srgb);
+  return !(out[0] == alarm[0] && out[1] == alarm[1] && out[2] == alarm[2]);
+}
+
 TEST_CASE("sRGB colours round-trip through the CMYK written within CIEDE2000 2.0", "[print]") {
   // Little CMS 2 as the oracle: the file's CMYK fills, in drawing order, back to CIELAB through
-  // the output profile (relative colorimetric), against the CIELAB of the stated sRGB.
-  Fixture f;
+  // the output profile (relative colorimetric), against the CIELAB of the stated sRGB. The
+  // file is written colorimetrically (relative colorimetric without black-point compensation,
+  // which by design lightens every colour towards the press's black) and only colours inside
+  // the profile's gamut can come back within 2.0; the others are listed, not checked.
+  Fixture f(/*black_point_compensation=*/false);
   QPDF pdf;
   pdf.processFile(f.print.c_str());
   std::vector<print::Cmyk> fills;
@@ -292,11 +321,18 @@ TEST_CASE("sRGB colours round-trip through the CMYK written within CIEDE2000 2.0
   }
   REQUIRE(fills.size() == std::size(kColours));
   print::ColourEngine engine({print::default_cmyk_profile()});
+  int checked = 0;
   for (std::size_t i = 0; i < fills.size(); ++i) {
     Colour c = hex(kColours[i]);
     double de = print::ciede2000(engine.lab_of(c), engine.lab_of(fills[i]));
     INFO(kColours[i] << " -> " << fills[i].c << " " << fills[i].m << " " << fills[i].y << " "
                      << fills[i].k << ": dE00 " << de);
+    if (!in_gamut(c)) {
+      WARN(kColours[i] << " is outside the profile's gamut: dE00 " << de);
+      continue;
+    }
     CHECK(de <= 2.0);
+    ++checked;
   }
+  CHECK(checked >= 8);  // most of the palette is printable: the check is not vacuous
 }

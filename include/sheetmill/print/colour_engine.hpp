@@ -41,6 +41,8 @@ std::filesystem::path default_cmyk_profile();
 // "relative-colorimetric" etc.; the spellings the style file uses.
 const char* intent_name(Intent intent);
 
+double ciede2000(const Lab& a, const Lab& b);
+
 class ColourEngine {
  public:
   explicit ColourEngine(const ColourSetup& setup = {});
@@ -53,7 +55,8 @@ class ColourEngine {
   const std::string& profile_bytes() const;
   std::string description() const;
 
-  // sRGB -> profile CMYK with the setup's intent (alpha ignored).
+  // sRGB -> profile CMYK with the setup's intent (alpha ignored). For relative colorimetric
+  // without black-point compensation the result is refined towards the colour's CIELAB.
   Cmyk cmyk_of(const Colour& srgb) const;
   // Profile CMYK -> sRGB (relative colorimetric, so paper white shows as white on screen).
   Colour srgb_of(const Cmyk& cmyk) const;
@@ -67,6 +70,7 @@ class ColourEngine {
   double k_for_grey(double v) const;
 
  private:
+  Cmyk refine(Cmyk start, const Lab& aim) const;
   struct Impl;
   std::unique_ptr<Impl> impl_;
 };
