@@ -16,8 +16,7 @@ int hex_digit(char c) {
   return -1;
 }
 
-const char* kColourExpected =
-    "a palette colour, a hex colour such as #1f6fb2 or #1f6fb280, or a mapping with cmyk or ink";
+const char* kColourExpected = "a palette colour or a hex colour such as #1f6fb2 or #1f6fb280";
 
 bool is_name(const std::string& s) {
   if (s.empty() || !std::isalpha(static_cast<unsigned char>(s[0]))) return false;

@@ -120,10 +120,16 @@ struct Sheet {
   }
 };
 
+// Rendered once for the checks in this file.
+Sheet& sheet() {
+  static Sheet s;
+  return s;
+}
+
 }  // namespace
 
 TEST_CASE("each plate matches Ghostscript's tiffsep separation of the PDF/X file", "[print][gs]") {
-  Sheet s;
+  Sheet& s = sheet();
   const std::pair<const char*, const char*> pairs[] = {{"1-black.tif", "gs(Black).tif"},
                                                        {"2-contour_brown.tif", "gs(Yellow).tif"},
                                                        {"3-water_blue.tif", "gs(Cyan).tif"},
@@ -176,7 +182,7 @@ TEST_CASE("each plate matches Ghostscript's tiffsep separation of the PDF/X file
 }
 
 TEST_CASE("the plate report says which layers went onto which plate", "[print][gs]") {
-  Sheet s;
+  Sheet& s = sheet();
   std::string report = test::read_text(s.plates / "plates.txt");
   INFO(report);
   CHECK(report.find("1-black.tif: ink black") != std::string::npos);
@@ -186,4 +192,35 @@ TEST_CASE("the plate report says which layers went onto which plate", "[print][g
   std::regex water_line("3-water_blue\\.tif[^\\n]*\\n  layers: [^\\n]*contours");
   CHECK_FALSE(std::regex_search(report, water_line));
   CHECK(report.find("relief") != std::string::npos);
+}
+
+TEST_CASE("plates are georeferenced like the GeoTIFF export; the PDF/X keeps its viewport",
+          "[print][gs]") {
+  Sheet& s = sheet();
+  // GDAL as the oracle: the plate and the GeoTIFF export of the same sheet at the same dpi.
+  auto tif = s.dir / "sheet.tif";
+  auto r = test::run_sheetmill({"render", (s.dir / "project.yaml").string(), "-o", tif.string(),
+                                "--dpi", std::to_string(kDpi)});
+  INFO(r.err);
+  REQUIRE(r.exit_code == 0);
+  gdal_init();
+  GDALDatasetUniquePtr plate(
+      GDALDataset::Open((s.plates / "1-black.tif").c_str(), GDAL_OF_RASTER | GDAL_OF_READONLY));
+  GDALDatasetUniquePtr exp(GDALDataset::Open(tif.c_str(), GDAL_OF_RASTER | GDAL_OF_READONLY));
+  REQUIRE(plate);
+  REQUIRE(exp);
+  CHECK(plate->GetRasterXSize() == exp->GetRasterXSize());
+  CHECK(plate->GetRasterYSize() == exp->GetRasterYSize());
+  double a[6], b[6];
+  REQUIRE(plate->GetGeoTransform(a) == CE_None);
+  REQUIRE(exp->GetGeoTransform(b) == CE_None);
+  for (int i = 0; i < 6; ++i) CHECK(a[i] == Approx(b[i]).margin(1e-6));
+  REQUIRE(plate->GetSpatialRef());
+  CHECK(plate->GetSpatialRef()->IsSame(exp->GetSpatialRef()));
+  CHECK(std::string(plate->GetMetadataItem("TIFFTAG_XRESOLUTION")) == std::to_string(kDpi));
+  // The PDF/X file still opens in GDAL's PDF driver with the frame's CRS (the viewport kept).
+  GDALDatasetUniquePtr pdf(GDALDataset::Open(s.pdf.c_str(), GDAL_OF_RASTER | GDAL_OF_READONLY));
+  REQUIRE(pdf);
+  REQUIRE(pdf->GetSpatialRef());
+  CHECK(pdf->GetSpatialRef()->IsSame(exp->GetSpatialRef()));
 }
