@@ -9,8 +9,8 @@ SHEETMILL_PACKAGES=(
   build-essential cmake pkg-config
   libgdal-dev gdal-bin libproj-dev proj-bin proj-data
   libcairo2-dev libharfbuzz-dev libfreetype-dev libfontconfig-dev libfribidi-dev
-  libyaml-cpp-dev libfmt-dev libhwy-dev libqpdf-dev libcli11-dev catch2 libpng-dev
-  fonts-dejavu-core fonts-noto-core poppler-utils qpdf python3
+  libyaml-cpp-dev libfmt-dev libhwy-dev libqpdf-dev libcli11-dev catch2 libpng-dev liblcms2-dev
+  fonts-dejavu-core fonts-noto-core poppler-utils qpdf ghostscript libgs-common python3
   python3-yaml python3-jsonschema
   slurm-wlm munge
   clang-14 libclang-rt-14-dev

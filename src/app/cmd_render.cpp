@@ -7,6 +7,7 @@
 #include "sheetmill/core/log.hpp"
 #include "sheetmill/core/plural.hpp"
 #include "sheetmill/project/project.hpp"
+#include "sheetmill/render/plates.hpp"
 #include "sheetmill/render/render.hpp"
 #include "sheetmill/style/style.hpp"
 
@@ -20,6 +21,9 @@ struct RenderArgs {
   std::string style;
   double dpi = 150;
   bool write_through_link = false;
+  std::string print_profile;
+  std::string plates;
+  double plate_dpi = 300;
 };
 }  // namespace
 
@@ -42,6 +46,16 @@ void add_render_command(CLI::App& app, Action& action, const GlobalOptions&) {
       ->check(number_from(20, 1200, "a resolution", "dots per inch"))
       ->type_name("DPI")
       ->capture_default_str();
+  cmd->add_option("--print-profile", args->print_profile,
+                  "Write the PDF as PDF/X-4 in CMYK for this ICC output profile (docs/print.md)")
+      ->type_name("PROFILE.icc");
+  cmd->add_option("--plates", args->plates,
+                  "Also write one greyscale plate per ink of the style into this folder")
+      ->type_name("DIR");
+  cmd->add_option("--plate-dpi", args->plate_dpi, "Resolution of the plates, dots per inch")
+      ->check(number_from(50, 2400, "a resolution", "dots per inch"))
+      ->type_name("DPI")
+      ->capture_default_str();
   cmd->add_flag("--write-through-link", args->write_through_link,
                 "When the output is a symbolic link, replace the file it points to");
   cmd->callback([args, &action] {
@@ -58,11 +72,21 @@ void add_render_command(CLI::App& app, Action& action, const GlobalOptions&) {
       options.raster_dpi = args->dpi;
       options.write_through_link = args->write_through_link;
       if (!args->sheet.empty()) options.sheet_id = args->sheet;
+      if (!args->print_profile.empty()) {
+        if (options.format != FileFormat::pdf) {
+          throw_input_error(args->output, "--print-profile writes PDF/X: expected a .pdf output");
+        }
+        options.print_profile = args->print_profile;
+      }
       render::RenderReport report = render::render_sheet(project, style, args->output, options);
       for (const auto& layer : report.layers) {
         log::info("layer {}: {}, {} placed, {} dropped", layer.layer,
                   counted(layer.features, "feature"), counted(layer.labels_placed, "label"),
                   layer.labels_dropped);
+      }
+      if (!args->plates.empty()) {
+        auto plates = render::render_plates(project, style, args->plates, args->plate_dpi, options);
+        log::info("wrote {} plates to {}", plates.size(), args->plates);
       }
       log::info(
           "wrote {} in {:.2f} s (relief {:.2f} s, contours {:.2f} s, features {:.2f} s, "

@@ -75,4 +75,42 @@ void verify_png(const std::filesystem::path& path, std::size_t bytes, const std:
                                   std::to_string(bytes) + ")");
 }
 
+namespace {
+// CRC-32 as the PNG specification's Annex D computes it.
+uint32_t png_crc(const unsigned char* p, std::size_t n) {
+  uint32_t c = 0xffffffffu;
+  for (std::size_t i = 0; i < n; ++i) {
+    c ^= p[i];
+    for (int k = 0; k < 8; ++k) c = (c & 1) ? 0xedb88320u ^ (c >> 1) : c >> 1;
+  }
+  return c ^ 0xffffffffu;
+}
+void put32(std::string& s, uint32_t v) {
+  for (int shift = 24; shift >= 0; shift -= 8) s += static_cast<char>((v >> shift) & 0xff);
+}
+}  // namespace
+
+cairo_status_t PngResolutionSink::write(void* closure, const unsigned char* data,
+                                        unsigned int length) {
+  auto* self = static_cast<PngResolutionSink*>(closure);
+  if (self->done) return CairoSink::write(&self->sink, data, length);
+  constexpr std::size_t kHead = 8 + 4 + 4 + 13 + 4;  // signature, IHDR length, type, data, CRC
+  self->head.append(reinterpret_cast<const char*>(data), length);
+  if (self->head.size() < kHead) return CAIRO_STATUS_SUCCESS;
+  std::string out = self->head.substr(0, kHead);
+  const auto ppm = static_cast<uint32_t>(self->dpi / 0.0254 + 0.5);
+  std::string chunk = "pHYs";
+  put32(chunk, ppm);
+  put32(chunk, ppm);
+  chunk += '\x01';  // the unit is the metre
+  put32(out, 9);
+  out += chunk;
+  put32(out, png_crc(reinterpret_cast<const unsigned char*>(chunk.data()), chunk.size()));
+  out += self->head.substr(kHead);
+  self->done = true;
+  self->head.clear();
+  return CairoSink::write(&self->sink, reinterpret_cast<const unsigned char*>(out.data()),
+                          static_cast<unsigned int>(out.size()));
+}
+
 }  // namespace sheetmill::pdf

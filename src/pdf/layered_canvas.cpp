@@ -316,8 +316,9 @@ void LayeredCanvas::finish_png(const std::filesystem::path& path, double dpi,
   cr.reset();
   FileWriter out(path, shown);
   CairoSink sink(out);
+  PngResolutionSink with_dpi(sink, dpi);
   cairo_status_t status =
-      cairo_surface_write_to_png_stream(surface.get(), &CairoSink::write, &sink);
+      cairo_surface_write_to_png_stream(surface.get(), &PngResolutionSink::write, &with_dpi);
   sink.rethrow_if_failed();
   check_cairo(status, "writing the PNG");
   out.close();
@@ -344,15 +345,18 @@ void LayeredCanvas::finish_geotiff(const std::filesystem::path& path, double dpi
                            g.max_y + f.min_y * m_per_mm,
                            0,
                            -px_mm * m_per_mm};
-  write_geotiff_strips(path, shown_name(path, shown_as), w, h, gt, geo.crs_wkt, [&](cairo_t* cr) {
-    cairo_scale(cr, dpi / kMmPerInch, dpi / kMmPerInch);
-    for (const auto& grp : impl_->groups) {
-      if (grp.streamed)
-        replay_streamed(cr, *grp.streamed, grp.blend);
-      else
-        replay(cr, grp.recording.get(), grp.blend);
-    }
-  });
+  write_geotiff_strips(
+      path, shown_name(path, shown_as), w, h, gt, geo.crs_wkt,
+      [&](cairo_t* cr) {
+        cairo_scale(cr, dpi / kMmPerInch, dpi / kMmPerInch);
+        for (const auto& grp : impl_->groups) {
+          if (grp.streamed)
+            replay_streamed(cr, *grp.streamed, grp.blend);
+          else
+            replay(cr, grp.recording.get(), grp.blend);
+        }
+      },
+      256, dpi);
 }
 
 }  // namespace sheetmill::pdf

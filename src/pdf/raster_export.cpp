@@ -31,7 +31,7 @@ void verify_geotiff(const std::filesystem::path& path, int width, int height,
 
 void write_geotiff_strips(const std::filesystem::path& path, const std::string& shown_as, int width,
                           int height, const std::array<double, 6>& gt, const std::string& crs_wkt,
-                          const std::function<void(cairo_t*)>& draw, int strip_rows) {
+                          const std::function<void(cairo_t*)>& draw, int strip_rows, double dpi) {
   gdal_init();
   GdalErrorScope errors;
   GDALDriver* driver = GetGDALDriverManager()->GetDriverByName("GTiff");
@@ -42,6 +42,12 @@ void write_geotiff_strips(const std::filesystem::path& path, const std::string& 
   if (!ds) {
     throw_input_error(shown_as, "cannot create the GeoTIFF: " +
                                     library_write_failure(path, errors.last_failure()));
+  }
+  if (dpi > 0) {
+    const std::string v = std::to_string(dpi);
+    ds->SetMetadataItem("TIFFTAG_XRESOLUTION", v.c_str());
+    ds->SetMetadataItem("TIFFTAG_YRESOLUTION", v.c_str());
+    ds->SetMetadataItem("TIFFTAG_RESOLUTIONUNIT", "2");  // inch
   }
   double t[6] = {gt[0], gt[1], gt[2], gt[3], gt[4], gt[5]};
   ds->SetGeoTransform(t);

@@ -52,7 +52,7 @@ RenderReport render_sheet(const project::Project& project, const style::Style& s
   report.seconds_relief = drawn.seconds_relief;
 
   t0 = Clock::now();
-  finish(canvas, project, sheet.layout.frame, output, options);
+  finish(canvas, project, style, sheet.layout.frame, output, options);
   // The relief strips are read, warped and shaded while the output is written.
   report.seconds_finish = seconds_since(t0) - *drawn.strip_seconds;
   report.seconds_relief += *drawn.strip_seconds;

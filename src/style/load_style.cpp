@@ -117,12 +117,20 @@ Layer read_layer(const ConfigNode& n, Reader& r) {
 
 }  // namespace
 
-Style load_style(const std::filesystem::path& path) {
+namespace {
+
+Style load(const std::filesystem::path& path, const std::optional<std::string>& plate_ink) {
   ConfigNode root = config::load_file(path);
   detail::reject_duplicate_keys(root);
-  root.expect_keys({"name", "about", "colours", "symbols", "label_styles", "layers", "relief",
-                    "contours", "grid", "sheet"});
-  Reader r(root.find("colours"), root.find("symbols"));
+  root.expect_keys({"name", "about", "press", "colours", "symbols", "label_styles", "layers",
+                    "relief", "contours", "grid", "sheet"});
+  std::optional<ConfigNode> plate;
+  if (plate_ink) {
+    // Located like the rest: a plate for an ink the style does not name is the style's error.
+    plate = ConfigNode(YAML::Node(*plate_ink), std::make_shared<const std::string>(path.string()),
+                       "press.inks");
+  }
+  Reader r(root.find("colours"), root.find("symbols"), root.find("press"), plate);
   if (auto ls = root.find("label_styles")) r.read_label_styles(*ls);
   Style s;
   s.file = path;
@@ -154,7 +162,24 @@ Style load_style(const std::filesystem::path& path) {
   if (auto n = root.find("contours")) s.contours = detail::read_contours(*n, r, s.contours);
   if (auto n = root.find("grid")) s.grid = detail::read_grid(*n, r, s.grid);
   if (auto n = root.find("sheet")) s.furniture = detail::read_furniture(*n, r, s.furniture);
+  s.press = r.press();
+  if (s.press.plate >= 0) {
+    // Relief shading lies on one plate; hypsometric tints are not separated into inks.
+    s.relief.tint = false;
+    s.relief.water_shade.reset();
+    if (s.press.plate != s.press.relief_ink) s.relief.hillshade = false;
+  }
   return s;
+}
+
+}  // namespace
+
+Style load_style(const std::filesystem::path& path) {
+  return load(path, std::nullopt);
+}
+
+Style load_style(const std::filesystem::path& path, const std::string& plate_ink) {
+  return load(path, plate_ink);
 }
 
 }  // namespace sheetmill::style

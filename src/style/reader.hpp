@@ -5,6 +5,7 @@
 // resolved value or throws Error(input) located at the offending node.
 
 #include <map>
+#include <memory>
 #include <set>
 #include <string>
 #include <variant>
@@ -19,16 +20,30 @@ using config::ConfigNode;
 // A plain decimal number (no unit); nullopt otherwise.
 std::optional<double> parse_number(const std::string& text);
 
+// 0..1, or a percentage "35%"; `what` names the quantity in the message ("an opacity").
+double read_share(const ConfigNode& n, const char* what);
+inline double read_opacity(const ConfigNode& n) {
+  return read_share(n, "an opacity");
+}
+
 // "#rrggbb" or "#rrggbbaa" (case-insensitive); nullopt when the text is not of that form.
 std::optional<Colour> parse_hex_colour(const std::string& text);
 
 class Reader {
  public:
-  // Reads the `colours` map (may be absent) and remembers the `symbols` map (may be absent).
-  Reader(const std::optional<ConfigNode>& colours, const std::optional<ConfigNode>& symbols);
+  // Reads the `press` section and the `colours` map (either may be absent) and remembers the
+  // `symbols` map (may be absent). A non-empty `plate_ink` reads every colour as that ink's
+  // plate sees it (load_style).
+  Reader(const std::optional<ConfigNode>& colours, const std::optional<ConfigNode>& symbols,
+         const std::optional<ConfigNode>& press = std::nullopt,
+         const std::optional<ConfigNode>& plate_ink = std::nullopt);
+  ~Reader();
 
-  // A palette name or a hex colour.
+  // A palette name, a hex colour, or a mapping (opacity, CMYK, ink tint); as the plate sees it
+  // when reading for one.
   Colour colour(const ConfigNode& n) const;
+  // The press section and every palette colour's print definition.
+  const PressStyle& press() const { return press_; }
 
   // A stroke's keys read into `base` (which supplies the defaults).
   Stroke stroke(const ConfigNode& n, Stroke base = {}) const;
@@ -66,7 +81,17 @@ class Reader {
   ShapePart shape(const ConfigNode& n) const;
   LineMarks marks(const ConfigNode& n);
 
+  // Print colours (press.cpp).
+  void read_press(const ConfigNode& n);
+  Ink read_ink(const std::string& name, const ConfigNode& n) const;
+  PressColour press_colour(const ConfigNode& n) const;
+  PressColour print_colour(const ConfigNode& n) const;  // { cmyk: [...] } or { ink: NAME }
+  Colour plate_view(const PressColour& c, const ConfigNode& at) const;
+  const print::ColourEngine& engine() const;
+
   std::map<std::string, Colour> palette_;
+  PressStyle press_;
+  mutable std::unique_ptr<print::ColourEngine> engine_;  // built on first use (CMYK colours)
   std::map<std::string, LabelStyle> label_styles_;
   std::optional<ConfigNode> symbols_;
   std::map<std::string, Named> parsed_;

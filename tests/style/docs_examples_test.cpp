@@ -14,12 +14,13 @@ using namespace sheetmill;
 namespace {
 
 // The `colours:` section of styles/field.yaml, as text.
+// The field style's palette, with the press section its ink tints refer to.
 std::string field_palette() {
   std::istringstream in(test::read_text(test::source_dir() / "styles/field.yaml"));
   std::string line, out;
   bool inside = false;
   while (std::getline(in, line)) {
-    if (line.rfind("colours:", 0) == 0) {
+    if (line.rfind("colours:", 0) == 0 || line.rfind("press:", 0) == 0) {
       inside = true;
     } else if (inside && !line.empty() && line[0] != ' ' && line[0] != '#') {
       break;
@@ -59,7 +60,7 @@ const char* kLayer = "layers:\n  - id: example\n    source: example\n";
 // The example as whole style files; empty when the block is of a kind this test does not know.
 std::vector<std::string> as_files(const std::string& block) {
   std::vector<std::string> out;
-  for (const char* s : {"name:", "colours:", "symbols:", "label_styles:", "layers:", "relief:",
+  for (const char* s : {"name:", "press:", "colours:", "symbols:", "label_styles:", "layers:", "relief:",
                         "contours:", "grid:", "sheet:"}) {
     if (starts(block, s)) return {block};
   }
@@ -106,7 +107,8 @@ TEST_CASE("every YAML example in docs/style.md loads", "[style]") {
       CHECK_FALSE(files.empty());  // a new kind of example: teach as_files() to wrap it
       for (const auto& f : files) {
         INFO("loaded as:\n" << f);
-        bool own_palette = starts(f, "colours:") || f.find("\ncolours:") != std::string::npos;
+        bool own_palette = starts(f, "colours:") || starts(f, "press:") ||
+                           f.find("\ncolours:") != std::string::npos;
         test::write_text(tmp / "example.yaml", own_palette ? f : palette + f);
         CHECK_NOTHROW(style::load_style(tmp / "example.yaml"));
         ++loaded;

@@ -30,6 +30,18 @@ struct CairoSink {
   void rethrow_if_failed() const;
 };
 
+// A Cairo PNG stream with its resolution: passes the bytes to `sink` and puts a pHYs chunk
+// (PNG specification, ISO/IEC 15948 section 11.3.5.3: pixels per metre, unit 1) right after
+// the IHDR chunk, so the image opens at its print size.
+struct PngResolutionSink {
+  PngResolutionSink(CairoSink& s, double dpi) : sink(s), dpi(dpi) {}
+  CairoSink& sink;
+  double dpi;
+  std::string head;  // the signature and IHDR, until the chunk is written
+  bool done = false;
+  static cairo_status_t write(void* closure, const unsigned char* data, unsigned int length);
+};
+
 // qpdf writes a PDF token by token: the sink gathers writes into 1 MiB blocks, so the checked
 // writer makes one system call per block, not one per token. The caller calls flush() after
 // QPDFWriter::write() for what is left (finish() does nothing: qpdf may call it while it

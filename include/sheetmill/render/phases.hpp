@@ -90,7 +90,8 @@ DrawReport draw(pdf::LayeredCanvas& canvas, const SheetInputs& inputs, const Pre
                 const Placement& placement);
 
 // Writes `canvas` to `output` in `options.format`, whole or not at all.
-void finish(pdf::LayeredCanvas& canvas, const project::Project& project, const MapFrame& frame,
-            const std::filesystem::path& output, const RenderOptions& options);
+void finish(pdf::LayeredCanvas& canvas, const project::Project& project, const style::Style& style,
+            const MapFrame& frame, const std::filesystem::path& output,
+            const RenderOptions& options);
 
 }  // namespace sheetmill::render

@@ -33,6 +33,9 @@ struct RenderOptions {
   // A symbolic link at the output is refused unless this is set; then the file it points to
   // is replaced and the link stays (core/atomic_file.hpp).
   bool write_through_link = false;
+  // PDF output only: write PDF/X-4 for print with this output profile (it overrides the style's
+  // press.profile); palette colours given as CMYK or ink tints keep their exact values.
+  std::optional<std::filesystem::path> print_profile;
 };
 
 struct LayerReport {

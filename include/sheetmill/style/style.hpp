@@ -15,6 +15,7 @@
 #include "sheetmill/core/colour.hpp"
 #include "sheetmill/core/error.hpp"
 #include "sheetmill/core/geometry.hpp"
+#include "sheetmill/print/colour_engine.hpp"
 #include "sheetmill/text/font.hpp"
 
 namespace sheetmill::style {
@@ -256,6 +257,33 @@ struct FurnitureStyle {
   double side_panel_mm = 70;  // legend and notes panel right of the map (0 = below)
 };
 
+// The press: the output profile and intent for CMYK output, and the team's inks (docs/style.md,
+// `press`). Every palette colour keeps how it was given: sRGB only, exact CMYK, or a tint of
+// one ink; `Colour` values elsewhere in the style are its sRGB appearance (what Cairo draws).
+struct Ink {
+  std::string name;
+  print::Cmyk cmyk;   // the ink's solid, as process CMYK (converted from sRGB when given so)
+  Colour appearance;  // sRGB of the solid
+  // Solid black (black ink only): overprints in the PDF/X file and is left off the other plates.
+  bool overprints() const { return cmyk.c == 0 && cmyk.m == 0 && cmyk.y == 0 && cmyk.k >= 1; }
+};
+
+struct PressColour {
+  Colour appearance;                // sRGB as drawn (alpha included)
+  std::optional<print::Cmyk> cmyk;  // exact CMYK to write; nullopt: convert the sRGB
+  int ink = -1;                     // index into PressStyle::inks, or -1
+  double tint = 1;                  // share of the ink's solid, 0..1
+};
+
+struct PressStyle {
+  print::ColourSetup colour;  // profile (empty: Debian's default CMYK), intent, compensation
+  std::vector<Ink> inks;
+  int relief_ink = -1;  // the plate that carries the relief shading; -1: the first ink
+  std::map<std::string, PressColour> colours;  // palette name -> how it prints
+  // The plate this style was loaded for (load_style's plate_ink), -1 for the full colour sheet.
+  int plate = -1;
+};
+
 struct Style {
   std::string name;
   std::filesystem::path file;
@@ -265,10 +293,16 @@ struct Style {
   ContourStyle contours;
   GridStyle grid;
   FurnitureStyle furniture;
+  PressStyle press;
 };
 
 // Loads and validates a style file; throws Error(input) with file:line:col and key path.
 Style load_style(const std::filesystem::path& path);
+// The same style as one ink's plate sees it: every palette colour that is a tint of `plate_ink`
+// becomes a grey of its coverage (black = 100 %), colours of other inks paper white (they
+// knock out), solid black of another ink transparent (it overprints), the relief only on the
+// relief plate. A colour that is neither an ink tint nor paper throws Error(input) at its key.
+Style load_style(const std::filesystem::path& path, const std::string& plate_ink);
 
 // Does `rule`'s filter accept a feature whose field values are looked up by `get`?
 // `get` returns nullptr when the feature lacks the field.
