@@ -2,6 +2,7 @@
 
 #include <ogr_spatialref.h>
 #include <ogrsf_frmts.h>
+#include <unistd.h>
 
 #include <cmath>
 #include <cstdio>
@@ -12,6 +13,7 @@
 #include "sheetmill/core/file_writer.hpp"
 #include "sheetmill/core/gdal_env.hpp"
 #include "sheetmill/core/handles.hpp"
+#include "sheetmill/core/temp_registry.hpp"
 #include "sheetmill/core/utf8.hpp"
 
 namespace sheetmill::batch {
@@ -71,15 +73,21 @@ void write_tile_index(const IndexPlan& plan, const fs::path& gpkg, const std::st
   // anything is written (core/atomic_file.hpp).
   resolve_output_target(gpkg);
   // The GeoPackage driver wants its extension; the temporary keeps it, then replaces the target.
-  fs::path temp = sibling_temp_path(gpkg, "part.gpkg");
-  struct Cleanup {
-    fs::path p;
-    bool keep = false;
-    ~Cleanup() {
-      std::error_code ec;
-      if (!keep) fs::remove(p, ec);
+  // It is registered for removal on SIGINT and SIGTERM (core/temp_registry.hpp) with SQLite's
+  // journal beside it, and a killed run's leftovers go with the next write of the same file.
+  remove_stale_temps(gpkg);
+  TempFile temp_file(sibling_temp_path(gpkg, "part.gpkg"), gpkg.string());
+  const fs::path temp = temp_file.path();
+  ::unlink(temp.c_str());  // the GeoPackage driver will not create over an existing file
+  const fs::path journal = temp.string() + "-journal";
+  struct JournalSlot {
+    int slot;
+    fs::path path;
+    ~JournalSlot() {
+      ::unlink(path.c_str());
+      unregister_temp(slot);
     }
-  } cleanup{temp};
+  } journal_slot{register_temp(journal), journal};
   {
     DatasetPtr ds(driver->Create(temp.c_str(), 0, 0, 0, GDT_Unknown, nullptr));
     if (!ds) {
@@ -140,7 +148,7 @@ void write_tile_index(const IndexPlan& plan, const fs::path& gpkg, const std::st
   if (std::rename(temp.c_str(), gpkg.c_str()) != 0) {
     throw_input_error(gpkg.string(), "cannot replace the file: " + errno_text(errno));
   }
-  cleanup.keep = true;
+  temp_file.release();
 }
 
 AreaOfInterest read_area_polygons(const std::string& path, const std::string& layer_name,

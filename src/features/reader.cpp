@@ -8,6 +8,7 @@
 #include "sheetmill/core/gdal_env.hpp"
 #include "sheetmill/core/log.hpp"
 #include "sheetmill/core/plural.hpp"
+#include "sheetmill/core/utf8.hpp"
 #include "sheetmill/features/clip.hpp"
 
 namespace sheetmill::features {
@@ -67,6 +68,18 @@ void collect(const OGRGeometry& g, const Box& box, Feature& f) {
 
 [[noreturn]] void missing(const project::Source& source, const std::string& why) {
   throw_input_error(source.path, "source '" + source.name + "': " + why);
+}
+
+// Names and field values become label text, file names and log lines: they must be text. The
+// sheet is refused, naming the feature, rather than drawn with broken or missing names
+// (docs/features.md, text fields).
+void check_text(const std::string& value, const project::Source& source, const char* field,
+                long long fid) {
+  if (auto bad = first_invalid_utf8(value)) {
+    missing(source, "feature " + std::to_string(fid) + ", field '" + field +
+                        "': " + quote_untrusted(value) + " is not valid UTF-8 (byte " +
+                        std::to_string(*bad + 1) + "); store the text as UTF-8");
+  }
 }
 
 }  // namespace
@@ -179,9 +192,11 @@ ReadSummary read_features(const project::Source& source, const ReadRequest& requ
     f.values.resize(index.size());
     for (std::size_t k = 0; k < index.size(); ++k) {
       int i = index[k];
-      if (i >= 0 && feat->IsFieldSetAndNotNull(i))
+      if (i >= 0 && feat->IsFieldSetAndNotNull(i)) {
         f.values[k] = feat->GetFieldAsString(i);
-      else
+        check_text(*f.values[k], source, layer->GetLayerDefn()->GetFieldDefn(i)->GetNameRef(),
+                   f.fid);
+      } else
         f.values[k].reset();
     }
     ++summary.delivered;

@@ -34,9 +34,11 @@ void displace_layers(PreparedLayers& out, const std::vector<std::vector<LineRef>
     }
   }
   if (lines.empty()) return;
+  // What displacement could not resolve is ink over ink a reader sees (a shallow crossing, a
+  // corridor narrower than the limit allows): a warning, with its place, never only at --verbose.
   for (const auto& c : features::displace_lines(lines)) {
     const Point g = frame.to_ground(c.at_mm);
-    log::debug(
+    log::warn(
         "layers '{}' and '{}' overlap by {:.2f} mm near E {:.0f} N {:.0f}: '{}' is held to "
         "its displacement limit of {:g} mm",
         out.layers[where[c.line].first].layer->id, out.layers[where[c.obstacle].first].layer->id,

@@ -22,7 +22,7 @@ struct LineRef {
 double symbol_half_width_mm(const style::LineSymbol& s);
 
 // Displaces the line features `refs` (per prepared layer) of the layers that take part; conflicts
-// beyond a layer's limit are logged (at --verbose) with their place on the ground.
+// beyond a layer's limit are warnings (log and render report) with their place on the ground.
 void displace_layers(PreparedLayers& out, const std::vector<std::vector<LineRef>>& refs,
                      const MapFrame& frame);
 

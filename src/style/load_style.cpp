@@ -3,6 +3,7 @@
 #include <map>
 
 #include "sheetmill/core/scale_text.hpp"
+#include "sheetmill/style/default_order.hpp"
 #include "style/reader.hpp"
 
 namespace sheetmill::style {
@@ -139,8 +140,10 @@ Style load(const std::filesystem::path& path, const std::optional<std::string>& 
   r.check_all_symbols();
 
   std::map<std::string, int> seen_ids;  // id -> line of first use
+  bool numbered = false;                // some layer states its order
   if (auto layers = root.find("layers")) {
     for (const auto& item : layers->items()) {
+      numbered = numbered || (item.is_map() && item.has("order"));
       Layer layer = read_layer(item, r);
       int line = item.at("id").location().line;
       auto [it, fresh] = seen_ids.emplace(layer.id, line);
@@ -151,6 +154,10 @@ Style load(const std::filesystem::path& path, const std::optional<std::string>& 
       s.layers.push_back(std::move(layer));
     }
   }
+  // A style that numbers none of its layers gets the usual stack by layer kind; one that numbers
+  // some keeps 0 for the others (docs/style.md, layers).
+  if (!numbered)
+    for (Layer& layer : s.layers) layer.order = default_layer_order(layer);
   std::stable_sort(s.layers.begin(), s.layers.end(),
                    [](const Layer& a, const Layer& b) { return a.order < b.order; });
 

@@ -94,3 +94,23 @@ TEST_CASE("SIGTERM to a batch removes its workers' temporaries", "[batch][signal
   INFO((left.empty() ? std::string() : left.front()));
   CHECK(left.empty());
 }
+
+// The index command's GeoPackage temporary (and SQLite's journal beside it) is registered like a
+// render's: 90 000 sheets of 100 m take long enough to write that the signal comes mid-write.
+TEST_CASE("SIGTERM while the index command writes its GeoPackage removes the temporary",
+          "[batch][signals]") {
+  test::TempDir dir("interrupt-index");
+  fs::path out = dir / "out";
+  fs::create_directories(out);
+  pid_t pid = spawn_sheetmill({"index", (out / "tiles.gpkg").string(), "--crs", "EPSG:32632",
+                               "--scale", "1000", "--frame", "100x100mm", "--snap", "100m",
+                               "--extent", "400000,5000000,430000,5030000"});
+  auto [status, seen] = interrupt_when_writing(pid, out, SIGTERM);
+  auto left = temporaries(out);
+  INFO((left.empty() ? std::string() : "left " + left.front()));
+  REQUIRE(seen);
+  CHECK(WIFSIGNALED(status));
+  if (WIFSIGNALED(status)) CHECK(WTERMSIG(status) == SIGTERM);
+  CHECK(left.empty());
+  CHECK_FALSE(fs::exists(out / "tiles.gpkg"));
+}

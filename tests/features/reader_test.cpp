@@ -190,3 +190,31 @@ TEST_CASE("the GB open topographic tile reads completely in its own CRS", "[feat
     CHECK(seen == expected);
   }
 }
+
+// Invalid UTF-8 in a text field the style reads (docs/features.md, Reading): the read stops
+// with an input error naming the source, the feature, the field and the first bad byte, the
+// value shown escaped. 0xFF never occurs in UTF-8 (RFC 3629, section 1); "Zell" + 0xE9 is a
+// Latin-1 e-acute, a lead byte without its continuation.
+TEST_CASE("a name that is not valid UTF-8 is refused naming its feature", "[features]") {
+  test::TempDir tmp("utf8-names");
+  const auto file = tmp / "names.gpkg";
+  write_points(file, 32632, {{{500100, 5200100}, "Harrow"}, {{500200, 5200200}, "Zell\xe9"}});
+  project::Source src{"places", file.string(), "pts", "", true};
+  ReadRequest req{test::wkt_of_epsg(32632), Box::of(500000, 5200000, 501000, 5201000), {"cls"}};
+  std::vector<std::string> names;
+  try {
+    read_features(src, req, [&](const Feature& f) { names.push_back(*f.values[0]); });
+    FAIL("no error for invalid UTF-8");
+  } catch (const Error& e) {
+    CHECK(e.exit_code() == 2);
+    const std::string m = e.what();
+    CHECK(m.find("names.gpkg: source 'places': feature 2, field 'cls': \"Zell\\xE9\" is not "
+                 "valid UTF-8 (byte 5)") != std::string::npos);
+  }
+  CHECK(names == std::vector<std::string>{"Harrow"});  // the valid one before it was read
+  // A field the style does not read is not checked: the same file with only geometry wanted.
+  long n = 0;
+  ReadRequest geometry_only{req.sheet_crs_wkt, req.clip_ground, {}};
+  read_features(src, geometry_only, [&](const Feature&) { ++n; });
+  CHECK(n == 2);
+}

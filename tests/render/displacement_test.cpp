@@ -9,6 +9,7 @@
 #include <iomanip>
 #include <sstream>
 
+#include "render/render_support.hpp"
 #include "sheetmill/core/gdal_env.hpp"
 #include "sheetmill/core/handles.hpp"
 #include "sheetmill/features/displace.hpp"
@@ -159,4 +160,28 @@ TEST_CASE("the demo's road gives way to the railway until their symbols touch",
   // the corridor did move.
   CHECK(moved_most <= limit + 1e-9);
   CHECK(moved_most > 0.3);
+}
+
+// What displacement leaves overlapping is a warning, seen without --verbose: the render of the
+// demo sheet logs the same conflict lines at the default level as at --verbose (issue 13; before,
+// they were only at --verbose, and the demo's one near E 475100 N 5195260 went unseen).
+TEST_CASE("conflicts left by displacement are warnings", "[render][displace]") {
+  test::TempDir dir("displace-warn");
+  const auto project = test::write_demo_project(dir);
+  auto conflict_lines = [](const std::string& err) {
+    std::vector<std::string> out;
+    std::istringstream in(err);
+    for (std::string line; std::getline(in, line);)
+      if (line.find("' overlap by ") != std::string::npos) out.push_back(line);
+    return out;
+  };
+  auto plain = test::run_sheetmill({"render", project.string(), "-o", (dir / "a.pdf").string()});
+  auto verbose = test::run_sheetmill(
+      {"--verbose", "render", project.string(), "-o", (dir / "b.pdf").string()});
+  REQUIRE(plain.exit_code == 0);
+  REQUIRE(verbose.exit_code == 0);
+  const auto seen = conflict_lines(plain.err), all = conflict_lines(verbose.err);
+  INFO(verbose.err);
+  CHECK(seen == all);
+  for (const auto& l : seen) CHECK(l.find("warning: ") != std::string::npos);
 }

@@ -263,3 +263,30 @@ TEST_CASE("relief and contours take their places among the layers", "[render][dr
                            {K::layer, 3},
                            {K::contours, 99}});
 }
+
+// A style with no order numbers at all: the field style with every `order:` line removed. Its
+// layers take their kinds' places (docs/style.md, layers), so the sheet still gets the usual
+// stack (common practice: area fills, relief, water areas, contours, water lines, transport,
+// buildings, names), not relief and contours over everything as when every layer was 0.
+TEST_CASE("a style without order numbers gets the usual stack by layer kind",
+          "[render][draw-order]") {
+  std::string text = test::read_text(test::source_dir() / "styles/field.yaml");
+  text = std::regex_replace(text, std::regex(R"(\n +order: [0-9]+[^\n]*)"), "");
+  REQUIRE(text.find("order:") == std::string::npos);
+  test::TempDir dir("order-none");
+  test::write_text(dir / "style.yaml", text);
+  const style::Style style = style::load_style(dir / "style.yaml");
+  std::vector<const style::Layer*> layers;
+  for (const auto& l : style.layers) layers.push_back(&l);
+  std::vector<std::string> seq;
+  for (const auto& s : render::draw_sequence(layers, style.relief.order, style.contours.order))
+    seq.push_back(s.kind == render::DrawStep::Kind::relief     ? "relief"
+                  : s.kind == render::DrawStep::Kind::contours ? "contours"
+                                                               : layers[s.layer]->id);
+  // The field style's own numbers give this sequence too (power lines join transport at 50:
+  // a line layer; tracks and roads keep their file order).
+  const std::vector<std::string> expected{
+      "landcover", "relief",      "water_areas", "contours",       "water_lines", "tracks", "roads",
+      "railways",  "power_lines", "buildings",   "control_points", "summits",     "places"};
+  CHECK(seq == expected);
+}

@@ -155,7 +155,8 @@ struct Layer {
   std::string group;     // optional-content group in the PDF (water, transport, ...)
   double min_scale = 0;  // visible when min_scale <= N <= max_scale (N of 1:N); 0 = open
   double max_scale = 0;
-  int order = 0;               // draw order; lower first; ties keep file order (see ReliefStyle)
+  int order = 0;               // draw order; lower first; ties keep file order (see ReliefStyle);
+                               // none in the style: by kind (style/default_order.hpp)
   bool obstacle = false;       // labels avoid this layer's symbols
   bool water_surface = false;  // its areas are water (lakes, ponds): contours are clipped out
   std::optional<Displacement> displacement;  // its lines take part in displacement
