@@ -286,6 +286,7 @@ PdfxReport write_pdfx(const std::filesystem::path& in, const std::filesystem::pa
     // PDF/X-4 is built on PDF 1.6 (ISO 15930-7 section 6.1).
     writer.forcePDFVersion("1.6");
     writer.write();
+    sink.flush();  // the sink gathers writes into blocks (pdf/checked_output.hpp)
     file.close();
   } catch (const Error&) {
     throw;
