@@ -1,7 +1,6 @@
 #include "sheetmill/demo/buildings.hpp"
 
 #include <cmath>
-#include <limits>
 
 #include "sheetmill/core/units.hpp"
 #include "sheetmill/demo/random.hpp"
@@ -17,9 +16,7 @@ struct Placer {
   const Hydrography& water;
   const Settlements& settled;
   std::vector<Polyline> water_lines;
-  std::vector<Polyline> ponds;
-  std::vector<Polyline> way_lines;  // roads, tracks and railway
-  std::vector<Polyline> served_by;  // roads and tracks
+  std::vector<Polyline> way_lines;  // roads and railway
   std::vector<Building> out;
   std::vector<std::pair<Point, double>> taken;  // centre, radius
 
@@ -41,12 +38,6 @@ struct Placer {
     }
     if (!clear_of(water_lines, c, radius + 12)) return false;
     if (!clear_of(way_lines, c, radius + 5)) return false;
-    for (const Polyline& p : ponds) {
-      if (point_in_ring(p, c) || distance_to_polyline(p, c) < radius + 8) return false;
-    }
-    // Served: the nearest road or track within 30 m of the building (its centre within
-    // 30 m minus a little, the corner nearest the way is nearer still).
-    if (clear_of(served_by, c, 28)) return false;
     out.push_back({rotated_rectangle(c, length_m, width_m, angle), kind});
     taken.push_back({c, radius});
     return true;
@@ -56,16 +47,11 @@ struct Placer {
 }  // namespace
 
 std::vector<Building> place_buildings(const Scenario& s, const FloatGrid& dem,
-                                      const Hydrography& water, const std::vector<WaterArea>& ponds,
-                                      Settlements& settled) {
-  Placer P{s, dem, water, settled, {}, {}, {}, {}, {}, {}};
+                                      const Hydrography& water, const Settlements& settled) {
+  Placer P{s, dem, water, settled, {}, {}, {}, {}};
   for (const WaterLine& w : water.lines) P.water_lines.push_back(w.line);
-  for (const WaterArea& a : ponds) P.ponds.push_back(a.ring);
   for (const Road& r : settled.roads) P.way_lines.push_back(r.line);
-  for (const Track& t : settled.tracks) P.way_lines.push_back(t.line);
   for (const Railway& r : settled.railways) P.way_lines.push_back(r.line);
-  P.served_by = P.way_lines;
-  P.served_by.resize(settled.roads.size() + settled.tracks.size());
   Random rng = Random(s.seed).fork(5);
   for (const Place& place : settled.places) {
     if (place.kind == "farm") {
@@ -80,22 +66,12 @@ std::vector<Building> place_buildings(const Scenario& s, const FloatGrid& dem,
     }
     if (place.kind != "village" && place.kind != "hamlet") continue;
     bool village = place.kind == "village";
-    double radius = village ? 480 + place.population / 5.0 : 200;
+    double radius = village ? 420 + place.population / 6.0 : 160;
     if (village) {
-      // The church stands back from a street near the centre, its long side to it.
-      bool placed = false;
-      for (const Road& road : settled.roads) {
-        Polyline line = densify(road.line, 10);
-        for (std::size_t i = 1; i < line.size() && !placed; ++i) {
-          if (distance(line[i], place.at) > 120) continue;
-          Point dir = line[i] - line[i - 1];
-          double a = std::atan2(dir.y, dir.x);
-          Point n{-std::sin(a), std::cos(a)};
-          for (double side : {1.0, -1.0}) {
-            if (!placed) placed = P.try_add(line[i] + n * (side * 21), 26, 11, a, "church");
-          }
-        }
-        if (placed) break;
+      // The church stands back from the road near the centre.
+      for (int tries = 0; tries < 40; ++tries) {
+        Point c = place.at + Point{rng.uniform(-60, 60), rng.uniform(-60, 60)};
+        if (P.try_add(c, 26, 11, rng.uniform(-0.3, 0.3), "church")) break;
       }
     }
     // Houses along every road inside the settlement, on both sides, parallel to the road.
@@ -105,9 +81,9 @@ std::vector<Building> place_buildings(const Scenario& s, const FloatGrid& dem,
       for (std::size_t i = 1; i < line.size(); ++i) {
         since += distance(line[i - 1], line[i]);
         double d = distance(line[i], place.at);
-        if (d > radius || since < rng.uniform(10, 14)) continue;
+        if (d > radius || since < rng.uniform(14, 24)) continue;
         // Denser at the centre.
-        if (rng.uniform() > 1.3 - d / radius) continue;
+        if (rng.uniform() > 1.05 - d / radius) continue;
         since = 0;
         Point dir = line[i] - line[i - 1];
         double a = std::atan2(dir.y, dir.x);
@@ -133,27 +109,8 @@ std::vector<Building> place_buildings(const Scenario& s, const FloatGrid& dem,
       Point dir = line[best] - line[best - 1];
       double a = std::atan2(dir.y, dir.x);
       Point n{-std::sin(a), std::cos(a)};
-      // Works on the village's side of the line, with a short track to the nearest road.
-      if (dot(n, at - line[best]) < 0) n = n * -1;
-      for (double off : {38.0, 55.0, -38.0, -55.0}) {
-        Point c = line[best] + n * off;
-        Point q = c;
-        double qd = std::numeric_limits<double>::infinity();
-        for (const Road& r : settled.roads) {
-          for (const Point& p : densify(r.line, 5)) {
-            if (distance(p, c) < qd) qd = distance(p, c), q = p;
-          }
-        }
-        if (qd > 400) continue;
-        Point dq = q - c;
-        Point gate = c + dq * (std::min(27.0, qd) / std::max(qd, 1e-9));
-        P.served_by.push_back(Polyline{gate, q});
-        if (P.try_add(c, 46, 24, a, "works")) {
-          settled.tracks.push_back({densify(Polyline{gate, q}, 10), "track"});
-          P.way_lines.push_back(Polyline{gate, q});
-          break;
-        }
-        P.served_by.pop_back();
+      for (double off : {38.0, -38.0, 55.0, -55.0}) {
+        if (P.try_add(line[best] + n * off, 46, 24, a, "works")) break;
       }
     }
   }

@@ -11,11 +11,9 @@ namespace {
 
 double trough_rise(double d, const ChannelProfile& p) {
   double beyond = d - p.floor_half_width_m;
-  // The floor dips gently towards the line, so water on it gathers along the line itself.
-  if (beyond <= 0) return p.floor_cross_slope * d;
-  double floor_rise = p.floor_cross_slope * p.floor_half_width_m;
-  if (beyond <= p.bank_width_m) return floor_rise + p.bank_height_m * beyond / p.bank_width_m;
-  return floor_rise + p.bank_height_m + (beyond - p.bank_width_m) * p.side_slope;
+  if (beyond <= 0) return 0;
+  if (beyond <= p.bank_width_m) return p.bank_height_m * beyond / p.bank_width_m;
+  return p.bank_height_m + (beyond - p.bank_width_m) * p.side_slope;
 }
 
 }  // namespace

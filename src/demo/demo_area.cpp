@@ -117,8 +117,6 @@ DemoAreaSummary generate_demo_area(const fs::path& outdir_arg, const DemoAreaOpt
   int lowered = enforce_downhill(dem, water_lines,
                                  [&](int col, int row) { return lake[dem.index(col, row)] != 0; });
   log::debug("demo-area: {} cells lowered so that every water line runs downhill", lowered);
-  int trimmed = trim_stream_heads(water, dem, kChannelThresholdM2);
-  log::debug("demo-area: {} stream-head vertices above the fine grid's channel heads", trimmed);
 
   features.summits = find_summits(dem, 14, 600, names);
   Settlements settled = lay_out_settlements(scenario, dem, water, features.summits, names);
@@ -127,8 +125,8 @@ DemoAreaSummary generate_demo_area(const fs::path& outdir_arg, const DemoAreaOpt
   for (const Track& t : settled.tracks) keep_clear.push_back(t.line);
   for (const Railway& r : settled.railways) keep_clear.push_back(r.line);
   std::vector<WaterArea> ponds = dig_ponds(scenario, dem, settled.places, keep_clear, 3);
-  features.buildings = place_buildings(scenario, dem, water, ponds, settled);
-  features.landcover = classify_landcover(scenario, dem, wet, settled.places, water.lines);
+  features.buildings = place_buildings(scenario, dem, water, settled);
+  features.landcover = classify_landcover(scenario, dem, wet, settled.places);
   features.power_lines = string_power_lines(scenario, settled.places);
   features.control_points =
       make_control_points(dem, settled.roads, features.summits, 1500, options.seed);

@@ -121,38 +121,6 @@ FlowRouting route_flow(const FloatGrid& dem, const std::vector<char>& sinks) {
   return f;
 }
 
-void join_parallel_flows(FlowRouting& f, double min_area_m2, int passes) {
-  const GridSpec& g = f.spec;
-  float cell_area = static_cast<float>(g.cell_m * g.cell_m);
-  for (int pass = 0; pass < passes; ++pass) {
-    int changed = 0;
-    for (std::int32_t i : f.order) {  // downstream first: captures cascade up a line
-      std::int32_t r = f.receiver[i];
-      if (r < 0 || f.area_m2[i] < min_area_m2) continue;
-      int col = i % g.width, row = i / g.width;
-      std::int32_t best = -1;
-      for (int k = 0; k < 8; ++k) {
-        int c = col + kDc[k], rr = row + kDr[k];
-        if (!g.inside(c, rr)) continue;
-        std::int32_t n = rr * g.width + c;
-        if (n == r || f.receiver[n] == i || f.filled[n] >= f.filled[i]) continue;
-        if (f.area_m2[n] < f.area_m2[i] || f.area_m2[n] <= f.area_m2[r]) continue;
-        if (best < 0 || f.area_m2[n] > f.area_m2[best]) best = n;
-      }
-      if (best >= 0) {
-        f.receiver[i] = best;
-        ++changed;
-      }
-    }
-    if (changed == 0) break;
-    f.area_m2.assign(g.size(), cell_area);
-    for (auto it = f.order.rbegin(); it != f.order.rend(); ++it) {
-      std::int32_t r = f.receiver[*it];
-      if (r >= 0) f.area_m2[r] += f.area_m2[*it];
-    }
-  }
-}
-
 void fill_depressions(FloatGrid& dem, const std::vector<char>& keep) {
   // Barnes et al. (2014), Algorithm 2: cells below the current spill level go through a plain
   // FIFO queue instead of the heap.

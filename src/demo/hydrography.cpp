@@ -2,7 +2,6 @@
 
 #include <algorithm>
 #include <cmath>
-#include <iterator>
 #include <map>
 
 #include "sheetmill/core/log.hpp"
@@ -51,8 +50,7 @@ Point nearest_on(const std::vector<Polyline>& parts, Point p) {
   return best;
 }
 
-ChannelProfile stream_profile(const StreamLine& line, double fine_cell_m) {
-  double area_km2 = line.area_km2;
+ChannelProfile stream_profile(double area_km2, double fine_cell_m) {
   ChannelProfile p;
   // The floor is at least as wide as a fine cell diagonal, so the cells bilinear sampling
   // reads at a vertex all lie on the floor.
@@ -61,98 +59,12 @@ ChannelProfile stream_profile(const StreamLine& line, double fine_cell_m) {
   p.bank_height_m = 0.8;
   p.bank_width_m = 2;
   p.side_slope = 0.32;
-  double incision = std::max(line.max_incision_m, std::min(30.0, 2.0 + 6.5 * std::sqrt(area_km2)));
-  // A gorge has steeper walls than an open valley.
-  if (incision > 25) p.side_slope = 0.55;
+  double incision = std::min(30.0, 2.0 + 6.5 * std::sqrt(area_km2));
   p.reach_m = p.floor_half_width_m + 2 + (incision + 15) / p.side_slope;
   return p;
 }
 
 }  // namespace
-
-int trim_stream_heads(Hydrography& h, const FloatGrid& dem, double threshold_m2) {
-  FlowRouting flow = route_flow(dem, {});
-  const GridSpec& g = dem.spec;
-  auto gathered = [&](Point p) {
-    int col = static_cast<int>(std::floor((p.x - g.x0) / g.cell_m));
-    int row = static_cast<int>(std::floor((g.y_top - p.y) / g.cell_m));
-    for (int r = row - 1; r <= row + 1; ++r) {
-      for (int c = col - 1; c <= col + 1; ++c) {
-        if (g.inside(c, r) && flow.area_m2[dem.index(c, r)] > threshold_m2) return true;
-      }
-    }
-    return false;
-  };
-  std::size_t n = h.streams.size();
-  std::size_t first = h.river_parts.size();  // h.lines: the river's parts, then the streams
-  std::vector<char> fed(n, 0), keep(n, 1);
-  for (const StreamLine& l : h.streams) {
-    if (l.receiver_line >= 0) fed[l.receiver_line] = 1;
-  }
-  int removed = 0;
-  for (std::size_t i = 0; i < n; ++i) {
-    if (fed[i]) continue;
-    StreamLine& l = h.streams[i];
-    std::size_t k = 0;
-    while (k < l.line.size() && !gathered(l.line[k])) ++k;
-    if (k + 1 >= l.line.size()) {
-      keep[i] = 0;
-      removed += static_cast<int>(l.line.size());
-      continue;
-    }
-    l.line.erase(l.line.begin(), l.line.begin() + static_cast<long>(k));
-    l.bed_m.erase(l.bed_m.begin(), l.bed_m.begin() + static_cast<long>(k));
-    h.lines[first + i].line = l.line;
-    removed += static_cast<int>(k);
-  }
-  // Drop the emptied lines and renumber the references between lines.
-  std::vector<int> new_index(n, -1);
-  std::vector<StreamLine> streams;
-  std::vector<WaterLine> lines(h.lines.begin(), h.lines.begin() + static_cast<long>(first));
-  for (std::size_t i = 0; i < n; ++i) {
-    if (!keep[i]) continue;
-    new_index[i] = static_cast<int>(streams.size());
-    streams.push_back(std::move(h.streams[i]));
-    lines.push_back(std::move(h.lines[first + i]));
-  }
-  for (StreamLine& l : streams) {
-    if (l.receiver_line >= 0) l.receiver_line = new_index[l.receiver_line];
-    if (l.main_stem >= 0) l.main_stem = new_index[l.main_stem];
-  }
-  lines.insert(lines.end(), std::make_move_iterator(h.lines.begin() + static_cast<long>(first + n)),
-               std::make_move_iterator(h.lines.end()));
-  h.streams = std::move(streams);
-  h.lines = std::move(lines);
-  // Strahler (1957) orders again, since dropped heads may have been one of two equal-order
-  // lines meeting at a junction. Lines come upstream first, so feeders are done before the
-  // line they join; a line's order comes from the lines meeting at its first vertex and is
-  // never below that of a tributary joining it further down.
-  std::vector<int> top(h.streams.size(), 0), top_count(h.streams.size(), 0),
-      below(h.streams.size(), 1);
-  int top_order = 1;
-  for (std::size_t i = 0; i < h.streams.size(); ++i) {
-    StreamLine& l = h.streams[i];
-    int order = top[i] == 0 ? 1 : (top_count[i] >= 2 ? top[i] + 1 : top[i]);
-    l.strahler = std::max(order, below[i]);
-    h.lines[first + i].strahler = l.strahler;
-    top_order = std::max(top_order, l.strahler);
-    int r = l.receiver_line;
-    if (r < 0) continue;
-    const Point& head = h.streams[static_cast<std::size_t>(r)].line.front();
-    if (distance(l.line.back(), head) < 1e-9) {
-      if (l.strahler > top[r]) {
-        top[r] = l.strahler;
-        top_count[r] = 1;
-      } else if (l.strahler == top[r]) {
-        ++top_count[r];
-      }
-    } else {
-      below[r] = std::max(below[r], l.strahler);
-    }
-  }
-  for (std::size_t i = 0; i < first; ++i) h.lines[i].strahler = top_order + 1;
-  return removed;
-}
 
 std::vector<char> lake_mask(const Scenario& s, const GridSpec& spec) {
   std::vector<char> mask(spec.size(), 0);
@@ -193,7 +105,6 @@ Hydrography carve_hydrography(const Scenario& s, FloatGrid& dem, NameMaker& name
   std::vector<char> sink_mask(cg.size());
   for (std::size_t i = 0; i < cg.size(); ++i) sink_mask[i] = sinks[i] != Sink::none;
   FlowRouting flow = route_flow(coarse, sink_mask);
-  join_parallel_flows(flow, 60000);
 
   StreamInputs in;
   in.flow = &flow;
@@ -202,11 +113,10 @@ Hydrography carve_hydrography(const Scenario& s, FloatGrid& dem, NameMaker& name
   in.river_point = [&](Point p) { return nearest_on(h.river_parts, p); };
   in.river_bed_m = [&](Point p) { return s.river_bed_m(p.x); };
   in.lake_level_m = s.lake_level_m;
-  in.threshold_m2 = kChannelThresholdM2;
-  in.seed = s.seed;
+  in.threshold_m2 = 250000;
   h.streams = extract_streams(in);
   for (const StreamLine& line : h.streams) {
-    carve_channel(dem, line.line, line.bed_m, stream_profile(line, dem.spec.cell_m));
+    carve_channel(dem, line.line, line.bed_m, stream_profile(line.area_km2, dem.spec.cell_m));
   }
   flatten_lake(s, dem);
 

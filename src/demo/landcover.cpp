@@ -1,209 +1,135 @@
 #include "sheetmill/demo/landcover.hpp"
 
+#include <gdal_alg.h>
+#include <ogr_geometry.h>
+#include <ogrsf_frmts.h>
+
 #include <algorithm>
 #include <cmath>
-#include <limits>
 
-#include "sheetmill/demo/drainage.hpp"
-#include "sheetmill/demo/isolines.hpp"
+#include "sheetmill/core/error.hpp"
+#include "sheetmill/core/gdal_env.hpp"
 #include "sheetmill/demo/noise.hpp"
-#include "sheetmill/demo/shapes.hpp"
+#include "sheetmill/demo/settlements.hpp"
 
 namespace sheetmill::demo {
 
 namespace {
 
-enum Cover { wood = 0, orchard = 1, marsh = 2, scrub = 3, kCovers = 4 };
-const char* const kCoverName[] = {"wood", "orchard", "marsh", "scrub"};
+enum Cover : std::uint8_t { none = 0, wood = 1, orchard = 2, marsh = 3, scrub = 4 };
+const char* const kCoverName[] = {"", "wood", "orchard", "marsh", "scrub"};
 
-// A soft ramp: -1 at or below lo, +1 at or above hi (linear between).
-double ramp(double x, double lo, double hi) {
-  return std::clamp(2 * (x - lo) / (hi - lo) - 1, -1.0, 1.0);
-}
-
-// Chamfer (3-4) distance in metres from the cells touched by the given lines (Borgefors 1986).
-std::vector<float> distance_to_lines(const GridSpec& g, const std::vector<const Polyline*>& lines) {
-  constexpr float kFar = 1e9f;
-  std::vector<float> d(g.size(), kFar);
-  for (const Polyline* l : lines) {
-    for (const Point& p : densify(*l, g.cell_m / 2)) {
-      d[static_cast<std::size_t>(g.row_clamped(p.y)) * g.width + g.col_clamped(p.x)] = 0;
-    }
-  }
-  float a = static_cast<float>(g.cell_m), b = static_cast<float>(g.cell_m * 1.41421356);
-  auto relax = [&](int col, int row, int dc, int dr, float w) {
-    int c = col + dc, r = row + dr;
-    if (!g.inside(c, r)) return;
-    float& here = d[static_cast<std::size_t>(row) * g.width + col];
-    here = std::min(here, d[static_cast<std::size_t>(r) * g.width + c] + w);
-  };
-  for (int row = 0; row < g.height; ++row) {
-    for (int col = 0; col < g.width; ++col) {
-      relax(col, row, -1, 0, a), relax(col, row, 0, -1, a);
-      relax(col, row, -1, -1, b), relax(col, row, 1, -1, b);
-    }
-  }
-  for (int row = g.height - 1; row >= 0; --row) {
-    for (int col = g.width - 1; col >= 0; --col) {
-      relax(col, row, 1, 0, a), relax(col, row, 0, 1, a);
-      relax(col, row, 1, 1, b), relax(col, row, -1, 1, b);
-    }
-  }
-  return d;
-}
-
-// Three passes of a separable [1/4, 1/2, 1/4] filter (about a 1.2-cell Gaussian); edges clamp.
-void blur(FloatGrid& f) {
-  const GridSpec& g = f.spec;
-  std::vector<float> tmp(f.values.size());
-  for (int pass = 0; pass < 3; ++pass) {
-    for (int row = 0; row < g.height; ++row) {
-      for (int col = 0; col < g.width; ++col) {
-        int l = std::max(col - 1, 0), r = std::min(col + 1, g.width - 1);
-        tmp[f.index(col, row)] =
-            0.25f * f.at(l, row) + 0.5f * f.at(col, row) + 0.25f * f.at(r, row);
-      }
-    }
-    for (int row = 0; row < g.height; ++row) {
-      int u = std::max(row - 1, 0), d = std::min(row + 1, g.height - 1);
-      for (int col = 0; col < g.width; ++col) {
-        f.at(col, row) = 0.25f * tmp[f.index(col, u)] + 0.5f * tmp[f.index(col, row)] +
-                         0.25f * tmp[f.index(col, d)];
-      }
-    }
-  }
-}
-
-struct Inputs {
-  FloatGrid z;                  // DEM heights at the cover grid's centres
-  std::vector<float> slope;     // rise over run, central differences over one cover cell
-  std::vector<float> twi;       // topographic wetness index
-  std::vector<float> stream_d;  // metres to the nearest stream
-};
-
-Inputs gather(const FloatGrid& dem, const GridSpec& g, const std::vector<WaterLine>& water) {
-  Inputs in;
-  in.z = FloatGrid(g, 0.0f);
+std::vector<std::uint8_t> classify(const Scenario& s, const FloatGrid& dem,
+                                   const std::vector<char>& wet, const std::vector<Place>& places,
+                                   const GridSpec& g) {
+  std::vector<std::uint8_t> cover(g.size(), none);
+  std::uint64_t k = s.seed * 131 + 7;
   parallel_rows(g.height, [&](int row) {
     for (int col = 0; col < g.width; ++col) {
-      in.z.at(col, row) = static_cast<float>(sample(dem, g.centre(col, row)));
+      Point p = g.centre(col, row);
+      double lake = s.lake_shape(p);
+      if (lake < 0.01) continue;
+      double slope = slope_at(dem, p);
+      double n = fbm(k, Scenario::u_of(p.x) / 900, Scenario::v_of(p.y) / 900, 4);
+      double n2 = fbm(k + 1, Scenario::u_of(p.x) / 260, Scenario::v_of(p.y) / 260, 3);
+      double z = sample(dem, p);
+      double floor = s.river_bed_m(p.x);
+      double settled = std::numeric_limits<double>::infinity();
+      for (const Place& pl : places) {
+        if (pl.kind == "village" || pl.kind == "hamlet")
+          settled = std::min(settled, distance(pl.at, p));
+      }
+      // Marsh: wet hollows, the lake's shore, and the lowest, wettest floodplain.
+      bool is_wet = wet[dem.index(dem.spec.col_clamped(p.x), dem.spec.row_clamped(p.y))] != 0;
+      if ((is_wet && n2 > -0.5) || (lake < 0.22 && z < s.lake_level_m + 2.5 && n2 > -0.3) ||
+          (z < floor + 2.4 && n > 0.25 && n2 > 0)) {
+        cover[static_cast<std::size_t>(row) * g.width + col] = marsh;
+        continue;
+      }
+      std::uint8_t c = none;
+      if (settled > 120 && settled < 650 && slope < 0.12 && n2 > 0.05 && n < 0.3) c = orchard;
+      if (settled > 350 && z > floor + 6 && (slope > 0.24 || n > 0.32) && n2 > -0.45) c = wood;
+      // Scrub in patches on the steepest faces (woods hold the rest) and at wood edges.
+      if ((slope > 0.55 && n2 > 0.05) || (c == wood && n2 < -0.3) ||
+          (c == none && slope > 0.18 && n2 > 0.35)) {
+        if (settled > 250) c = scrub;
+      }
+      cover[static_cast<std::size_t>(row) * g.width + col] = c;
     }
   });
-  in.slope.assign(g.size(), 0);
-  for (int row = 0; row < g.height; ++row) {
-    for (int col = 0; col < g.width; ++col) {
-      int l = std::max(col - 1, 0), r = std::min(col + 1, g.width - 1);
-      int u = std::max(row - 1, 0), d = std::min(row + 1, g.height - 1);
-      double dx = (in.z.at(r, row) - in.z.at(l, row)) / ((r - l) * g.cell_m);
-      double dy = (in.z.at(col, d) - in.z.at(col, u)) / ((d - u) * g.cell_m);
-      in.slope[in.z.index(col, row)] = static_cast<float>(std::hypot(dx, dy));
+  // One 3 x 3 majority pass, for smoother outlines.
+  std::vector<std::uint8_t> smooth = cover;
+  for (int row = 1; row + 1 < g.height; ++row) {
+    for (int col = 1; col + 1 < g.width; ++col) {
+      int votes[5] = {0, 0, 0, 0, 0};
+      for (int dr = -1; dr <= 1; ++dr)
+        for (int dc = -1; dc <= 1; ++dc) ++votes[cover[(row + dr) * g.width + col + dc]];
+      int best = cover[row * g.width + col];
+      for (int c = 0; c < 5; ++c)
+        if (votes[c] >= 5) best = c;
+      smooth[row * g.width + col] = static_cast<std::uint8_t>(best);
     }
   }
-  // Wetness: ln(a / tan b) with a the contributing area per unit contour width (Beven & Kirkby
-  // 1979), from a Priority-Flood D8 routing on this grid.
-  FlowRouting flow = route_flow(in.z, {});
-  in.twi.assign(g.size(), 0);
-  for (std::size_t i = 0; i < g.size(); ++i) {
-    double a = flow.area_m2[i] / g.cell_m;
-    in.twi[i] = static_cast<float>(std::log(a / std::max(0.002, static_cast<double>(in.slope[i]))));
-  }
-  std::vector<const Polyline*> streams;
-  for (const WaterLine& w : water) {
-    if (w.kind == "stream") streams.push_back(&w.line);
-  }
-  in.stream_d = distance_to_lines(g, streams);
-  return in;
+  return smooth;
 }
 
 }  // namespace
 
 std::vector<LandcoverArea> classify_landcover(const Scenario& s, const FloatGrid& dem,
                                               const std::vector<char>& wet,
-                                              const std::vector<Place>& places,
-                                              const std::vector<WaterLine>& water) {
+                                              const std::vector<Place>& places) {
   GridSpec g;
   g.cell_m = std::max(25.0, dem.spec.cell_m);
-  Box bounds = dem.spec.bounds();
-  g.x0 = bounds.min_x;
-  g.y_top = bounds.max_y;
-  g.width = static_cast<int>(std::lround(bounds.width() / g.cell_m));
-  g.height = static_cast<int>(std::lround(bounds.height() / g.cell_m));
-  Inputs in = gather(dem, g, water);
+  Box b = dem.spec.bounds();
+  g.x0 = b.min_x;
+  g.y_top = b.max_y;
+  g.width = static_cast<int>(std::lround(b.width() / g.cell_m));
+  g.height = static_cast<int>(std::lround(b.height() / g.cell_m));
+  std::vector<std::uint8_t> cover = classify(s, dem, wet, places, g);
 
-  std::vector<FloatGrid> score(kCovers, FloatGrid(g, -1.0f));
-  std::uint64_t k = s.seed * 131 + 7;
-  parallel_rows(g.height, [&](int row) {
-    for (int col = 0; col < g.width; ++col) {
-      Point p = g.centre(col, row);
-      std::size_t i = in.z.index(col, row);
-      double lake = s.lake_shape(p);
-      if (lake < 0.02) continue;  // open water
-      double slope = in.slope[i];
-      double n = fbm(k, Scenario::u_of(p.x) / 900, Scenario::v_of(p.y) / 900, 4);
-      double n2 = fbm(k + 1, Scenario::u_of(p.x) / 260, Scenario::v_of(p.y) / 260, 3);
-      double z = in.z.at(col, row);
-      double above_bed = z - s.river_bed_m(p.x);
-      double settled = std::numeric_limits<double>::infinity();
-      for (const Place& pl : places) {
-        if (pl.kind == "village" || pl.kind == "hamlet") {
-          settled = std::min(settled, distance(pl.at, p));
-        }
-      }
-      bool hollow = wet[dem.index(dem.spec.col_clamped(p.x), dem.spec.row_clamped(p.y))] != 0;
-
-      // Marsh: flat and wet.
-      double wetness = std::max(
-          {ramp(in.twi[i], 13.5, 15.5) + 0.4 * n2, hollow ? 0.6 + 0.4 * n2 : -1.0,
-           std::min(ramp(-lake, -0.26, -0.16), ramp(s.lake_level_m + 2.5 - z, -0.5, 0.5)) +
-               0.3 * n2,
-           std::min({ramp(2.4 - above_bed, -0.4, 0.4), ramp(n, 0.15, 0.35), ramp(n2, -0.1, 0.1)})});
-      double m = std::min(wetness, ramp(0.05 - slope, -0.015, 0.015));
-      // Woods: steep ground, large blocks, and strips along streams above the floodplain.
-      double wood_where =
-          std::max({ramp(slope, 0.18, 0.26), ramp(n, 0.26, 0.38),
-                    std::min(ramp(70 - in.stream_d[i], -20, 20), ramp(n2, -0.3, -0.1))});
-      double w = std::min(
-          {wood_where, ramp(settled, 300, 420), ramp(above_bed, 4, 8), ramp(n2, -0.55, -0.35)});
-      // Orchards: gentle ground round villages and hamlets.
-      double o = std::min({ramp(settled, 100, 160), ramp(-settled, -700, -600),
-                           ramp(0.12 - slope, -0.03, 0.03), ramp(n2, -0.05, 0.15),
-                           ramp(-n, -0.35, -0.25)});
-      // Scrub: patches on the steepest faces, on open steep ground, and in gaps of woods.
-      double sc = std::max({std::min(ramp(slope, 0.5, 0.6), ramp(n2, -0.05, 0.15)),
-                            std::min({ramp(slope, 0.16, 0.22), ramp(n2, 0.3, 0.42), -w}),
-                            std::min(wood_where, ramp(-n2, 0.2, 0.4))});
-      sc = std::min(sc, ramp(settled, 220, 300));
-      score[wood].at(col, row) = static_cast<float>(w);
-      score[orchard].at(col, row) = static_cast<float>(o);
-      score[marsh].at(col, row) = static_cast<float>(m + 0.3);  // marsh wins close calls
-      score[scrub].at(col, row) = static_cast<float>(sc);
-    }
-  });
-  for (FloatGrid& f : score) blur(f);
-
+  gdal_init();
+  GdalErrorScope errors;
+  GDALDriver* mem = GetGDALDriverManager()->GetDriverByName("MEM");
+  DatasetPtr raster(mem->Create("", g.width, g.height, 1, GDT_Byte, nullptr));
+  double gt[6] = {g.x0, g.cell_m, 0, g.y_top, 0, -g.cell_m};
+  raster->SetGeoTransform(gt);
+  GDALRasterBand* band = raster->GetRasterBand(1);
+  if (band->RasterIO(GF_Write, 0, 0, g.width, g.height, cover.data(), g.width, g.height, GDT_Byte,
+                     0, 0) != CE_None) {
+    throw_internal_error("landcover raster: " + errors.last_failure());
+  }
+  // GDAL 3.6 keeps in-memory vectors in the separate "Memory" driver.
+  GDALDriver* memory = GetGDALDriverManager()->GetDriverByName("Memory");
+  if (!mem || !memory) throw_internal_error("GDAL lacks the MEM or Memory driver");
+  DatasetPtr vector(memory->Create("", 0, 0, 0, GDT_Unknown, nullptr));
+  OGRLayer* layer = vector->CreateLayer("cover", nullptr, wkbPolygon, nullptr);
+  OGRFieldDefn field("code", OFTInteger);
+  layer->CreateField(&field);
+  // The band is its own mask: code 0 (no cover) is left out.
+  if (GDALPolygonize(band, band, layer, 0, nullptr, nullptr, nullptr) != CE_None) {
+    throw_internal_error("landcover polygonize: " + errors.last_failure());
+  }
   std::vector<LandcoverArea> out;
-  FloatGrid own(g, 0.0f);
-  for (int c = 0; c < kCovers; ++c) {
-    // Where this kind's score is positive and beats every other (continuous, so the outline
-    // can be contoured at sub-cell precision).
-    for (std::size_t i = 0; i < g.size(); ++i) {
-      float rival = 0;
-      for (int o = 0; o < kCovers; ++o) {
-        if (o != c) rival = std::max(rival, score[o].values[i]);
-      }
-      own.values[i] = score[c].values[i] - rival;
+  bool geos = OGRGeometryFactory::haveGEOS();
+  layer->ResetReading();
+  for (auto& f : *layer) {
+    int code = f->GetFieldAsInteger(0);
+    if (code < 1 || code > 4) continue;
+    GeometryPtr geom(f->GetGeometryRef()->clone());
+    if (geos) geom.reset(geom->SimplifyPreserveTopology(g.cell_m * 0.45));
+    if (!geom || wkbFlatten(geom->getGeometryType()) != wkbPolygon) continue;
+    auto* poly = geom->toPolygon();
+    if (poly->get_Area() < 10000) continue;
+    LandcoverArea area;
+    area.kind = kCoverName[code];
+    for (int r = 0; r <= poly->getNumInteriorRings(); ++r) {
+      const OGRLinearRing* ring = r == 0 ? poly->getExteriorRing() : poly->getInteriorRing(r - 1);
+      Polyline pts;
+      for (int i = 0; i + 1 < ring->getNumPoints(); ++i)
+        pts.push_back({ring->getX(i), ring->getY(i)});
+      if (pts.size() >= 3) area.rings.push_back(std::move(pts));
     }
-    std::vector<Polyline> rings = region_rings(own);
-    for (Polyline& r : rings) {
-      Polyline closed = chaikin_closed(r, 2);
-      closed.push_back(closed.front());
-      closed = simplify(closed, 0.8);
-      closed.pop_back();
-      r = std::move(closed);
-    }
-    for (auto& poly : assemble_polygons(std::move(rings), 10000, 2500)) {
-      out.push_back({std::move(poly), kCoverName[c]});
-    }
+    if (!area.rings.empty()) out.push_back(std::move(area));
   }
   return out;
 }

@@ -45,28 +45,12 @@ double Scenario::river_bed_m(double x) const {
 
 double Scenario::escarpment_y(double x) const {
   double u = u_of(x);
-  // Spurs and re-entrants: a softened |sin| makes narrow re-entrants cutting back north into
-  // the plateau between broad, rounded spurs, about 1.7 km apart.
-  double w = wave(u, 2700, escarpment_shape_phase[0]);
-  double bays = 1 - 2 * std::sqrt(w * w + 0.03);
   return kAreaSouth + 10100 + 550 * wave(u, 11000, escarpment_phase[0]) +
-         230 * wave(u, 4300, escarpment_phase[1]) + 280 * bays;
+         230 * wave(u, 4300, escarpment_phase[1]);
 }
 
 double Scenario::escarpment_width_m(double x) const {
-  // From a steep 240 m face to a broad 860 m slope.
-  double t = 0.5 + 0.5 * wave(u_of(x), 7000, escarpment_phase[2]);
-  return 240 + 620 * t * t;
-}
-
-double Scenario::escarpment_height_m(double x) const {
-  double u = u_of(x);
-  return 250 + 85 * wave(u, 8300, escarpment_shape_phase[1]) +
-         35 * wave(u, 2900, escarpment_shape_phase[2]);
-}
-
-double Scenario::plateau_dip(double x) const {
-  return 0.004 + 0.011 * wave(u_of(x), 9500, escarpment_shape_phase[3]);
+  return 300 + 170 * (0.5 + 0.5 * wave(u_of(x), 7000, escarpment_phase[2]));
 }
 
 double Scenario::lake_shape(Point p) const {
@@ -112,7 +96,6 @@ Scenario make_scenario(std::uint64_t seed, double size_scale) {
   double west_end = lake_x;
   for (const Point& p : s.lake_ring) west_end = std::min(west_end, p.x);
   s.lake_level_m = static_cast<float>(std::round((s.river_bed_m(west_end) + 0.9) * 100) / 100);
-  for (double& p : s.escarpment_shape_phase) p = rng.uniform(0, kTwoPi);
   return s;
 }
 

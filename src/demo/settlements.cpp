@@ -6,7 +6,6 @@
 #include "sheetmill/core/log.hpp"
 #include "sheetmill/demo/route.hpp"
 #include "sheetmill/demo/shapes.hpp"
-#include "sheetmill/demo/streets.hpp"
 
 namespace sheetmill::demo {
 
@@ -169,22 +168,17 @@ Settlements lay_out_settlements(const Scenario& s, const FloatGrid& dem, const H
   const Place& v2 = places[1];
   const Place& v3 = places[2];
   add_road({edge_point(kAreaWest + 10, 1), v1.at, v2.at, v3.at, edge_point(kAreaWest + W - 10, 1)},
-           kMain, "main", "24/1", "");
+           kMain, "main", "M 4", "");
   Point north_exit{places[3].at.x + 400, kAreaSouth + kAreaHeightM - 10};
-  add_road({v2.at, places[5].at, places[3].at, north_exit}, kSecondary, "secondary", "24/12", "");
+  add_road({v2.at, places[5].at, places[3].at, north_exit}, kSecondary, "secondary", "S 12", "");
   add_road({v3.at, places[7].at, Point{places[7].at.x + 300, kAreaSouth + 10}}, kSecondary,
-           "secondary", "24/13", "");
+           "secondary", "S 31", "");
 
-  // Village streets along the contours and up a side valley.
-  StreetContext streets{s, dem, water, grid, on_road};
-  for (std::size_t i = 0; i < 3; ++i) lay_out_streets(streets, places[i], L.rng, out.roads);
-
-  // Minor roads: every other settlement to the nearest road; farms sit at the end of a track.
+  // Minor roads: every other settlement to the nearest road.
   for (std::size_t i = 0; i < places.size(); ++i) {
     if (i < 3 || i == 3 || i == 5 || i == 7) continue;
     const Place& p = places[i];
-    bool farm = p.kind == "farm";
-    std::vector<int> nodes = grid.route_to_any(grid.node_at(p.at), on_road, farm ? kTrack : kMinor);
+    std::vector<int> nodes = grid.route_to_any(grid.node_at(p.at), on_road, kMinor);
     if (nodes.size() < 2) continue;
     Polyline line = path_to_line(grid, nodes, dem);
     // End exactly on the road it joins.
@@ -196,12 +190,7 @@ Settlements lay_out_settlements(const Scenario& s, const FloatGrid& dem, const H
       }
     }
     std::reverse(line.begin(), line.end());
-    line.back() = p.at;
-    if (farm) {
-      out.tracks.push_back({line, "track"});
-      continue;
-    }
-    std::string name = p.name + " Lane";
+    std::string name = p.kind == "farm" ? "" : p.name + " Lane";
     for (int n : nodes) {
       on_road[n] = 1;
       grid.set_discount(n, 0.45f);
@@ -229,11 +218,8 @@ Settlements lay_out_settlements(const Scenario& s, const FloatGrid& dem, const H
 
   // The railway keeps to the valley floor and its terraces.
   std::vector<int> rail;
-  // It enters from the west 150 m nearer the river than the main road, so the two do not
-  // share an end at the area's edge.
-  Point west_entry = terrace(kAreaWest + 10, 1) + Point{0, -150};
-  Point stops[4] = {west_entry, Point{v1.at.x, v1.at.y - 150}, Point{v2.at.x, v2.at.y + 150},
-                    terrace(kAreaWest + W - 10, -1)};
+  Point stops[4] = {terrace(kAreaWest + 10, 1), Point{v1.at.x, v1.at.y - 150},
+                    Point{v2.at.x, v2.at.y + 150}, terrace(kAreaWest + W - 10, -1)};
   for (int i = 1; i < 4; ++i) {
     std::vector<int> leg =
         rail_grid.route(rail_grid.node_at(stops[i - 1]), rail_grid.node_at(stops[i]), kRail);

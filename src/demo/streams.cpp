@@ -4,8 +4,6 @@
 #include <cmath>
 #include <limits>
 
-#include "sheetmill/demo/random.hpp"
-
 namespace sheetmill::demo {
 
 namespace {
@@ -15,57 +13,6 @@ namespace {
 // of area).
 double incision_m(double area_km2) {
   return std::min(30.0, 2.0 + 6.5 * std::sqrt(area_km2));
-}
-
-// Extra incision where the stream falls steeply (grade along the flow path): up to 35 m for a
-// stream of a few square kilometres crossing the escarpment, so it runs in a gorge.
-double gorge_m(double grade, double area_km2) {
-  return 35 * std::clamp((grade - 0.08) / 0.25, 0.0, 1.0) *
-         std::min(1.0, std::sqrt(area_km2) / 1.5);
-}
-
-// The least fall of a bed per metre of channel (0.5 m/km): enough for D8 to follow the
-// channel on the DEM's Float32 heights, small enough to stay below a floodplain's surface.
-constexpr double kMinFall = 0.0005;
-
-// The lowest ground within about 20 m of p (a 5 x 5 pattern at 10 m): a bed below it sits below
-// any hollow beside the line, so no pit next to the channel is lower than the channel.
-double lowest_ground(const FloatGrid& ground, Point p) {
-  double z = std::numeric_limits<double>::infinity();
-  for (int dy = -2; dy <= 2; ++dy) {
-    for (int dx = -2; dx <= 2; ++dx) {
-      if (dx * dx + dy * dy > 5) continue;
-      z = std::min(z, sample(ground, {p.x + 10.0 * dx, p.y + 10.0 * dy}));
-    }
-  }
-  return z;
-}
-
-// One pass of the four-point scheme (Dyn, Levin & Gregory 1987): original vertices stay, a
-// new one goes between each pair; ends are extended by reflection. Beds are interpolated
-// linearly, so they still never rise.
-void refine(Polyline& line, std::vector<double>& bed) {
-  if (line.size() < 3) return;
-  Polyline out;
-  std::vector<double> out_bed;
-  std::size_t n = line.size();
-  auto at = [&](long i) {
-    if (i < 0) return line[0] * 2 - line[1];
-    if (i >= static_cast<long>(n)) return line[n - 1] * 2 - line[n - 2];
-    return line[static_cast<std::size_t>(i)];
-  };
-  for (std::size_t i = 0; i + 1 < n; ++i) {
-    long k = static_cast<long>(i);
-    out.push_back(line[i]);
-    out_bed.push_back(bed[i]);
-    Point mid = (at(k) + at(k + 1)) * (9.0 / 16) - (at(k - 1) + at(k + 2)) * (1.0 / 16);
-    out.push_back(mid);
-    out_bed.push_back(0.5 * (bed[i] + bed[i + 1]));
-  }
-  out.push_back(line.back());
-  out_bed.push_back(bed.back());
-  line.swap(out);
-  bed.swap(out_bed);
 }
 
 }  // namespace
@@ -111,45 +58,15 @@ std::vector<StreamLine> extract_streams(const StreamInputs& in) {
     }
     pos.swap(next);
   }
-  // Meanders: the phase advances by 2 pi per wavelength along the channel from its mouth, so it
-  // is continuous through every confluence; two incommensurate waves keep bends irregular.
-  {
-    std::vector<double> phase(n, 0);
-    std::vector<Point> moved = pos;
-    Random rng = Random(in.seed).fork(11);
-    double phi = rng.uniform(0, 6.283185307179586);
-    for (std::int32_t c : f.order) {
-      if (!is_stream[c]) continue;
-      std::int32_t r = f.receiver[c];
-      bool down = r >= 0 && is_stream[r];
-      double area_km2 = f.area_m2[c] / 1e6;
-      double wavelength = 140 + 40 * std::sqrt(area_km2);
-      double step = down ? distance(pos[c], pos[r]) : 0;
-      phase[c] = (down ? phase[r] : 0) + 6.283185307179586 * step / wavelength;
-      std::int32_t d = main_donor[c];
-      Point a = d >= 0 ? pos[d] : pos[c];
-      Point b = down ? pos[r] : pos[c];
-      Point t = b - a;
-      double len = length(t);
-      if (len <= 0) continue;
-      double grade = down ? (f.filled[c] - f.filled[r]) / std::max(step, 1.0) : 0;
-      double amp = 0.1 * wavelength / (1 + std::pow(grade / 0.06, 2));
-      double wave = 0.7 * std::sin(phase[c] + phi) + 0.45 * std::sin(1.754 * phase[c] + 2 * phi);
-      moved[c] = pos[c] + Point{-t.y / len, t.x / len} * (amp * wave);
-    }
-    pos.swap(moved);
-  }
   // Where each stream ends, and the floor its beds keep to, downstream first.
   constexpr double kNone = -std::numeric_limits<double>::infinity();
   std::vector<double> floor(n, kNone);
-  std::vector<double> to_mouth(n, 0);  // metres along the channel to where it ends
   std::vector<Point> end_point(n);
   for (std::int32_t c : f.order) {
     if (!is_stream[c]) continue;
     std::int32_t r = f.receiver[c];
     if (r >= 0 && is_stream[r]) {
       floor[c] = floor[r];
-      to_mouth[c] = to_mouth[r] + distance(pos[c], pos[r]);
     } else if (r >= 0 && sinks[r] == Sink::river) {
       end_point[c] = in.river_point(pos[c]);
       floor[c] = in.river_bed_m(end_point[c]);
@@ -172,30 +89,17 @@ std::vector<StreamLine> extract_streams(const StreamInputs& in) {
         p.y = b.min_y + half;
       end_point[c] = p;
     }
-    if (!(r >= 0 && is_stream[r])) to_mouth[c] = distance(pos[c], end_point[c]);
   }
   // Beds, upstream first.
   std::vector<double> bed(n, std::numeric_limits<double>::infinity());
   for (auto it = f.order.rbegin(); it != f.order.rend(); ++it) {
     std::int32_t c = *it;
     if (!is_stream[c]) continue;
-    std::int32_t down = f.receiver[c];
-    double grade = 0;
-    if (down >= 0) {
-      grade = (f.filled[c] - f.filled[down]) / std::max(distance(centre(c), centre(down)), 1.0);
-    }
-    double area_km2 = f.area_m2[c] / 1e6;
-    // Below both the filled surface and the ground under the (meandering) vertex, so the
-    // channel is incised wherever the line runs.
-    double own = std::min(static_cast<double>(f.filled[c]), lowest_ground(*in.ground, pos[c])) -
-                 incision_m(area_km2) - gorge_m(grade, area_km2);
-    // Strictly falling: at least kMinFall per metre below every bed upstream, and above the
-    // floor by kMinFall per metre still to go, so no reach is a flat.
-    bed[c] = std::max(std::min(bed[c], own), floor[c] + kMinFall * to_mouth[c]);
+    double own = std::min(static_cast<double>(f.filled[c]) - incision_m(f.area_m2[c] / 1e6),
+                          sample(*in.ground, pos[c]));
+    bed[c] = std::max(std::min(bed[c], own), floor[c]);
     std::int32_t r = f.receiver[c];
-    if (r >= 0 && is_stream[r]) {
-      bed[r] = std::min(bed[r], bed[c] - kMinFall * distance(pos[c], pos[r]));
-    }
+    if (r >= 0 && is_stream[r]) bed[r] = std::min(bed[r], bed[c]);
   }
   // Lines: start at sources and where the order rises; follow while the order holds.
   std::vector<StreamLine> lines;
@@ -227,11 +131,6 @@ std::vector<StreamLine> extract_streams(const StreamInputs& in) {
         s.bed_m.push_back(floor[cur] == kNone ? bed[cur] : std::min(bed[cur], floor[cur]));
       }
       break;
-    }
-    refine(s.line, s.bed_m);
-    refine(s.line, s.bed_m);
-    for (std::size_t k = 0; k < s.line.size(); ++k) {
-      s.max_incision_m = std::max(s.max_incision_m, sample(*in.ground, s.line[k]) - s.bed_m[k]);
     }
     lines.push_back(std::move(s));
     first_cell.push_back(c);

@@ -1,10 +1,7 @@
 #pragma once
-// Buildings as small rotated rectangles with their long side to the street: houses lining the
-// roads and streets of each village and hamlet, a church set back from a street near each
-// village centre, works by the railway (reached by a short track, added to settled.tracks),
-// and farmsteads (house and barns) at the end of their tracks. None stands on water (lines or
-// ponds), on a road or track, on another building, or on ground steeper than 20 %; every one
-// is within 30 m of a road or track.
+// Buildings as small rotated rectangles: houses lining the roads of each village and hamlet,
+// a church near each village centre, works by the railway, and farmsteads (house and barns).
+// None stands on water, on a road, on another building, or on ground steeper than 20 %.
 
 #include <vector>
 
@@ -17,7 +14,6 @@
 namespace sheetmill::demo {
 
 std::vector<Building> place_buildings(const Scenario& s, const FloatGrid& dem,
-                                      const Hydrography& water, const std::vector<WaterArea>& ponds,
-                                      Settlements& settled);
+                                      const Hydrography& water, const Settlements& settled);
 
 }  // namespace sheetmill::demo

@@ -2,10 +2,9 @@
 // Cutting channels and valleys into the DEM along water lines, and the final guarantee that
 // every water line runs downhill in the DEM.
 //
-// carve_channel lowers cells (never raises them) to a trough around the line: a floor at the bed
-// height on the line, dipping gently towards it, a low bank, then valley sides rising at
-// side_slope, out to reach_m. Bed heights are per vertex and interpolated along each segment; they
-// must not rise downstream.
+// carve_channel lowers cells (never raises them) to a trough around the line: a flat floor at
+// the bed height, a low bank, then valley sides rising at side_slope, out to reach_m. Bed
+// heights are per vertex and interpolated along each segment; they must not rise downstream.
 
 #include <functional>
 #include <vector>
@@ -17,7 +16,6 @@ namespace sheetmill::demo {
 
 struct ChannelProfile {
   double floor_half_width_m = 4;
-  double floor_cross_slope = 0.03;  // rise per metre from the line across the floor
   double bank_height_m = 1;
   double bank_width_m = 2;
   double side_slope = 0.3;  // rise per metre beyond the bank

@@ -28,14 +28,6 @@ FloatGrid downsample(const FloatGrid& dem, int factor);
 // sinks[i] != 0 marks cells that take water out of the grid (they get receiver -1).
 FlowRouting route_flow(const FloatGrid& dem, const std::vector<char>& sinks);
 
-// D8 on smooth slopes draws neighbouring cells as parallel flow lines that run side by side
-// for kilometres. This joins them: a cell draining at least min_area_m2 whose neighbour drains
-// at least as much and is strictly lower on the filled surface sends its water there instead
-// (the smaller line is captured by the larger), and contributing areas are recomputed.
-// Passes repeat while lines change, at most `passes` times. Receivers stay lower than their
-// donors, so `order` stays valid.
-void join_parallel_flows(FlowRouting& f, double min_area_m2, int passes = 3);
-
 // Raises every cell to the lowest level from which water can run off the grid edge or into a
 // cell with keep[i] != 0 (a closed depression that must stay). Plain Priority-Flood, no epsilon:
 // filled pits become exact flats. keep may be empty.

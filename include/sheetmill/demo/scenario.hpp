@@ -30,7 +30,6 @@ struct Scenario {
   double meander_phase[2] = {0, 0};
   double floodplain_phase = 0;
   double escarpment_phase[3] = {0, 0, 0};
-  double escarpment_shape_phase[4] = {0, 0, 0, 0};  // spurs, height, plateau dip
 
   // The lake: an irregular oval on the valley axis; the river enters at its east end.
   Point lake_centre;
@@ -48,13 +47,7 @@ struct Scenario {
   // River bed height; strictly decreasing downstream (westward).
   double river_bed_m(double x) const;
   double escarpment_y(double x) const;
-  // Horizontal width of the steep step; narrower is steeper.
   double escarpment_width_m(double x) const;
-  // Height of the step above the ground at its foot.
-  double escarpment_height_m(double x) const;
-  // Fall of the plateau per metre northward from the escarpment's crest; negative where the
-  // plateau tilts south and drains over the escarpment (through gorges).
-  double plateau_dip(double x) const;
   // 0 on the lake shore, < 0 inside, about (r/R - 1) outside: a cheap distance-like measure.
   double lake_shape(Point p) const;
 };

@@ -2,22 +2,14 @@
 // Streams from a flow routing: every cell draining at least threshold_m2 is a stream cell.
 // Lines are cut where the Strahler (1957) order changes, run from source downstream, and end on
 // the first vertex of the line they join, on the river line, inside the lake, or at the grid
-// edge. Vertex positions are cell centres smoothed along the main stem ([1/4, 1/2, 1/4]),
-// then displaced across the flow by a meander wave whose phase advances with distance along
-// the channel (wavelength and amplitude grow with drainage area, steep reaches stay straight),
-// and finally refined by two passes of the interpolating four-point scheme (Dyn, Levin &
-// Gregory 1987), which keeps every cell's vertex; a cell shared by two lines has the same
-// position in both.
-//
-// Gorges: where the filled surface falls steeply (the escarpment) the incision deepens, so a
-// stream crossing the step cuts back into it.
+// edge. Vertex positions are cell centres smoothed along the main stem ([1/4, 1/2, 1/4]);
+// a cell shared by two lines has the same position in both.
 //
 // Bed heights (metres, per vertex) never rise downstream: each is the least of the filled
 // height minus an incision that grows with drainage area, the ground under the vertex, and
 // every bed upstream; beds draining to the river or lake stay at or above its level where
 // they join it.
 
-#include <cstdint>
 #include <functional>
 #include <vector>
 
@@ -33,10 +25,9 @@ struct StreamLine {
   Polyline line;
   std::vector<double> bed_m;
   int strahler = 1;
-  double area_km2 = 0;        // drained at the last vertex
-  int main_stem = -1;         // lines with the same main_stem form one named watercourse
-  int receiver_line = -1;     // the line this one ends on, -1 for river, lake or edge
-  double max_incision_m = 0;  // deepest bed below the ground along the line
+  double area_km2 = 0;     // drained at the last vertex
+  int main_stem = -1;      // lines with the same main_stem form one named watercourse
+  int receiver_line = -1;  // the line this one ends on, -1 for river, lake or edge
 };
 
 struct StreamInputs {
@@ -48,7 +39,6 @@ struct StreamInputs {
   std::function<double(Point)> river_bed_m;
   double lake_level_m = 0;
   double threshold_m2 = 250000;
-  std::uint64_t seed = 0;  // meander phases
 };
 
 std::vector<StreamLine> extract_streams(const StreamInputs& in);
