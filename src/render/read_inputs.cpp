@@ -21,6 +21,9 @@ SheetInputs read_inputs(const project::Project& project, const style::Style& sty
         sheet::read_tile_index(*project.tile_index, project.crs));
     in.tile_index = in.own_tile_index.get();
   }
+  // The DEM is opened here once, before any feature is read: a bad path or format is the one
+  // line the user sees, not preceded by warnings from preparing a sheet that cannot be drawn.
+  if (!project.elevation.dem.empty()) open_raster(project.elevation.dem);
   // A stated declination needs no model; a named model file is read here, once.
   in.magnetic_model = options.magnetic_model;
   if (!in.magnetic_model && !project.magnetic.declination_deg && project.magnetic.model_file) {
