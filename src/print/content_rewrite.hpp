@@ -9,7 +9,7 @@
 #include <set>
 #include <string>
 
-#include "sheetmill/print/cmyk_mapper.hpp"
+#include "sheetmill/colour/cmyk_mapper.hpp"
 
 namespace sheetmill::print::detail {
 

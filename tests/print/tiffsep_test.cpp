@@ -20,7 +20,7 @@
 #include <vector>
 
 #include "sheetmill/core/gdal_env.hpp"
-#include "sheetmill/print/colour_engine.hpp"
+#include "sheetmill/colour/colour_engine.hpp"
 #include "support/test_env.hpp"
 
 using namespace sheetmill;

@@ -3,7 +3,7 @@
 // (print::ColourEngine, the oracle), the plate greys against the tint arithmetic they encode.
 #include <catch2/catch.hpp>
 
-#include "sheetmill/print/colour_engine.hpp"
+#include "sheetmill/colour/colour_engine.hpp"
 #include "sheetmill/style/style.hpp"
 #include "support/test_env.hpp"
 

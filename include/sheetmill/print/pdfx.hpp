@@ -9,8 +9,8 @@
 #include <string>
 #include <vector>
 
-#include "sheetmill/print/cmyk_mapper.hpp"
-#include "sheetmill/print/colour_engine.hpp"
+#include "sheetmill/colour/cmyk_mapper.hpp"
+#include "sheetmill/colour/colour_engine.hpp"
 
 namespace sheetmill::print {
 

@@ -15,7 +15,7 @@
 #include "sheetmill/core/colour.hpp"
 #include "sheetmill/core/error.hpp"
 #include "sheetmill/core/geometry.hpp"
-#include "sheetmill/print/colour_engine.hpp"
+#include "sheetmill/colour/colour_engine.hpp"
 #include "sheetmill/text/font.hpp"
 
 namespace sheetmill::style {

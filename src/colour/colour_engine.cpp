@@ -1,4 +1,4 @@
-#include "sheetmill/print/colour_engine.hpp"
+#include "sheetmill/colour/colour_engine.hpp"
 
 #include <lcms2.h>
 

@@ -14,9 +14,11 @@
 #include <map>
 #include <vector>
 
+#include "sheetmill/colour/colour_engine.hpp"
 #include "sheetmill/core/colour.hpp"
-#include "sheetmill/print/colour_engine.hpp"
 
+// The colour stage keeps the print namespace: its types (Cmyk, Intent, ColourEngine) are the
+// print stage's vocabulary; the stage is separate only so that it carries no qpdf.
 namespace sheetmill::print {
 
 struct ExactColour {

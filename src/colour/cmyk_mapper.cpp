@@ -1,4 +1,4 @@
-#include "sheetmill/print/cmyk_mapper.hpp"
+#include "sheetmill/colour/cmyk_mapper.hpp"
 
 #include <algorithm>
 #include <cmath>

@@ -14,6 +14,8 @@
 
 #include "sheetmill/core/colour.hpp"
 
+// The colour stage keeps the print namespace: its types (Cmyk, Intent, ColourEngine) are the
+// print stage's vocabulary; the stage is separate only so that it carries no qpdf.
 namespace sheetmill::print {
 
 struct Cmyk {

@@ -4,7 +4,7 @@
 #include <cmath>
 #include <numbers>
 
-#include "sheetmill/print/colour_engine.hpp"
+#include "sheetmill/colour/colour_engine.hpp"
 
 namespace sheetmill::print {
 

@@ -5,7 +5,7 @@
 // several public test suites, which agree row for row.
 #include <catch2/catch.hpp>
 
-#include "sheetmill/print/colour_engine.hpp"
+#include "sheetmill/colour/colour_engine.hpp"
 
 using Catch::Matchers::WithinAbs;
 using sheetmill::print::ciede2000;
